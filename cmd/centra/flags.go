@@ -69,3 +69,12 @@ func requirePositive(name string, v float64, unit string) error {
 	}
 	return nil
 }
+
+// parseDurationFlag reads a duration flag that has a default.
+func parseDurationFlag(c *cli.Context, name string) (float64, error) {
+	v, err := quantity.Parse(quantity.Duration, c.String(name))
+	if err != nil {
+		return 0, flagError(name, err)
+	}
+	return v, nil
+}

@@ -9,7 +9,8 @@ import (
 	"path/filepath"
 	"strings"
 	"testing"
-	"time"
+
+	"centra/bodies/timescale"
 )
 
 var update = flag.Bool("update", false, "update .golden files")
@@ -32,7 +33,7 @@ func TestMain(m *testing.M) {
 		os.Exit(2)
 	}
 	// A fixed clock keeps default epochs reproducible in-process.
-	nowEpoch = func() epoch { return time.Date(2027, 4, 12, 9, 30, 0, 0, time.UTC) }
+	nowEpoch = func() epoch { return timescale.MustParseUTC("2027-04-12T09:30:00Z") }
 	code := m.Run()
 	os.RemoveAll(dir)
 	os.Exit(code)
