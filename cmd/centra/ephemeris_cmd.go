@@ -73,7 +73,7 @@ func ephemerisAction(c *cli.Context) error {
 	if err != nil {
 		return err
 	}
-	ms, err := parseModel(c, spec.Body)
+	ms, err := parseModel(c, spec.Body, spec.Epoch)
 	if err != nil {
 		return err
 	}

@@ -48,7 +48,7 @@ var spacecraftKeys = map[string]string{
 	"true_anomaly": "true-anomaly", "mean_anomaly": "mean-anomaly", "sun_synchronous": "sun-synchronous",
 	"mass_kg": "mass", "area_m2": "area", "cd": "cd", "cr": "cr", "srp_area_m2": "srp-area",
 	"ballistic_coefficient_kg_m2": "ballistic-coefficient",
-	"burnout_alt": "burnout-alt", "burnout_lat": "burnout-lat", "burnout_lon": "burnout-lon",
+	"burnout_alt":                 "burnout-alt", "burnout_lat": "burnout-lat", "burnout_lon": "burnout-lon",
 	"burnout_speed": "burnout-speed", "flight_path_angle": "flight-path-angle", "azimuth": "azimuth",
 	"launch_site": "",
 }

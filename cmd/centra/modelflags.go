@@ -33,8 +33,10 @@ type modelSpec struct {
 	Label   string // for titles: "J2", "zonal degree 4"
 }
 
-// parseModel reads the model flags for body b.
-func parseModel(c *cli.Context, b *bodies.Body) (*modelSpec, error) {
+// parseModel reads the model flags for body b; ep is the epoch of the
+// initial state (t = 0 of the propagation).
+func parseModel(c *cli.Context, b *bodies.Body, ep epoch) (*modelSpec, error) {
+	_ = ep // perturbations that need absolute time (Sun, Moon) bind to it
 	name := strings.ToLower(strings.TrimSpace(c.String("model")))
 	if name == "" {
 		name = "point"

@@ -31,6 +31,7 @@ func orbitFlags() []cli.Flag {
 		&cli.StringFlag{Name: "true-anomaly", Usage: "true anomaly `ANGLE` at epoch (default 0)", Category: cat},
 		&cli.StringFlag{Name: "mean-anomaly", Usage: "mean anomaly `ANGLE` at epoch (hyperbolic mean anomaly for e > 1)", Category: cat},
 		&cli.BoolFlag{Name: "sun-synchronous", Usage: "solve the inclination that makes the orbit sun-synchronous (J2)", Category: cat},
+		&cli.StringFlag{Name: "from-opm", Usage: "read body, epoch and state from a CCSDS Orbit Parameter Message (KVN) `FILE`", Category: cat},
 	}
 }
 
@@ -43,6 +44,8 @@ type orbitSpec struct {
 	// Given says which form defined the orbit, for messages.
 	Given    string
 	Warnings []string
+	// Spacecraft holds what an OPM says about the spacecraft.
+	Spacecraft opmSpacecraft
 }
 
 var shapeForms = []struct {
@@ -53,9 +56,10 @@ var shapeForms = []struct {
 	{"--periapsis-alt/--apoapsis-alt", []string{"periapsis-alt", "apoapsis-alt"}},
 	{"--semi-major-axis/--eccentricity", []string{"semi-major-axis"}},
 	{"--position/--velocity", []string{"position", "velocity"}},
+	{"--from-opm", []string{"from-opm"}},
 }
 
-const shapeFix = "give exactly one of --altitude H | --periapsis-alt H --apoapsis-alt H | --semi-major-axis A --eccentricity E | --position X,Y,Z --velocity VX,VY,VZ"
+const shapeFix = "give exactly one of --altitude H | --periapsis-alt H --apoapsis-alt H | --semi-major-axis A --eccentricity E | --position X,Y,Z --velocity VX,VY,VZ | --from-opm FILE"
 
 // parseOrbit reads the orbit flags of c.
 func parseOrbit(c *cli.Context) (*orbitSpec, error) {
@@ -91,6 +95,13 @@ func parseOrbit(c *cli.Context) (*orbitSpec, error) {
 	}
 	spec.Given = given[0]
 	mu, re := body.GM, body.EquatorialRadius
+	if spec.Given == "--from-opm" {
+		if err := stateFromOPM(c, spec); err != nil {
+			return nil, err
+		}
+		spec.check(spec.Body.EquatorialRadius)
+		return spec, nil
+	}
 
 	if spec.Given == "--position/--velocity" {
 		for _, fl := range []string{"inclination", "raan", "arg-periapsis", "true-anomaly", "mean-anomaly", "eccentricity", "sun-synchronous"} {
