@@ -147,7 +147,16 @@ func loadMission(file string, data []byte) (*missionRun, error) {
 		}
 		return nil, missionError(file, 0, "", err.Error(), "fix the TOML syntax or the value's type")
 	}
-	if und := md.Undecoded(); len(und) > 0 {
+	var und []toml.Key
+	for _, k := range md.Undecoded() {
+		// The free-form tables are checked key by key below; the library
+		// does not mark keys nested under them as decoded.
+		if len(k) > 0 && (k[0] == "spacecraft" || k[0] == "site" || k[0] == "output") {
+			continue
+		}
+		und = append(und, k)
+	}
+	if len(und) > 0 {
 		k := und[0]
 		line := 0
 		if len(k) >= 2 {

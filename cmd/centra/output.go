@@ -132,6 +132,12 @@ func (o *output) finish(err error) error {
 		os.Remove(name)
 		return err
 	}
+	// CreateTemp makes the file private; a result is an ordinary file.
+	if err := o.file.Chmod(0o644); err != nil {
+		o.file.Close()
+		os.Remove(name)
+		return inputErrorf("check the file system", "--out %q: %v", o.target, err)
+	}
 	if err := o.file.Sync(); err != nil {
 		o.file.Close()
 		os.Remove(name)
