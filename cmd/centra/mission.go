@@ -159,8 +159,11 @@ func loadMission(file string, data []byte) (*missionRun, error) {
 	if len(und) > 0 {
 		k := und[0]
 		line := 0
-		if len(k) >= 2 {
+		switch {
+		case len(k) >= 2:
 			line = keyLine(data, k[0], -1, k[len(k)-1])
+		case len(k) == 1:
+			line = keyLine(data, k[0], -1, "")
 		}
 		return nil, missionError(file, line, k.String(), "unknown key", "top-level tables are [mission], [[spacecraft]], [[site]] and [[output]]; see the README, 'Mission files'")
 	}
