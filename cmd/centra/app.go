@@ -27,6 +27,7 @@ func globalFlags() []cli.Flag {
 		&cli.StringFlag{Name: "format", Value: "table", Usage: "output `FORMAT`: table, csv or json (ephemeris also oem)"},
 		&cli.StringFlag{Name: "bodies", Usage: "add or override central bodies from a TOML `FILE` (see README, 'Bodies file')"},
 		&cli.BoolFlag{Name: "quiet", Usage: "print no warnings or progress on stderr"},
+		&cli.StringFlag{Name: "leap-seconds", Usage: "read leap seconds from an IERS leap-seconds.list `FILE` (for epochs after the built-in table)"},
 	}
 }
 
@@ -100,6 +101,9 @@ func checkArgs(cmd *cli.Command, action cli.ActionFunc) cli.ActionFunc {
 			extra := c.Args().Slice()[maxArgs:]
 			return inputErrorf("put all flags before positional arguments; run 'centra "+cmd.Name+" --help'",
 				"unexpected argument %q", strings.Join(extra, " "))
+		}
+		if err := loadLeapSeconds(c); err != nil {
+			return err
 		}
 		return action(c)
 	}

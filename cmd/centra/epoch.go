@@ -2,6 +2,11 @@ package main
 
 import (
 	"errors"
+	"fmt"
+	"io"
+	"os"
+	"strings"
+	"sync"
 	"time"
 
 	"github.com/urfave/cli/v2"
@@ -27,10 +32,62 @@ var latestEpoch = timescale.MustParseUTC("2200-01-01T00:00:00Z")
 
 // parseEpochFlag reads an RFC 3339 UTC time from flag name.
 func parseEpochFlag(c *cli.Context, name string) (epoch, error) {
-	if !c.IsSet(name) {
-		return nowEpoch(), nil
+	e := nowEpoch()
+	if c.IsSet(name) {
+		var err error
+		if e, err = parseEpoch(name, c.String(name)); err != nil {
+			return e, err
+		}
 	}
-	return parseEpoch(name, c.String(name))
+	warnLeap(c, e)
+	return e, nil
+}
+
+var (
+	leapMu      sync.Mutex
+	leapPending string
+)
+
+// warnLeap notes, for the end of a successful run, that an epoch lies
+// beyond the date the leap-second table is known to be complete.
+func warnLeap(c *cli.Context, e epoch) {
+	if e.LeapWarning() == nil || lookupBool(c, "quiet") {
+		return
+	}
+	leapMu.Lock()
+	defer leapMu.Unlock()
+	if leapPending == "" {
+		leapPending = fmt.Sprintf("centra: warning: epoch %s is after %s, the date centra's leap-second table is known complete; UTC may be off by whole seconds if a leap second was announced since (IERS Bulletin C); give --leap-seconds FILE with a current IERS leap-seconds.list\n",
+			e.FormatUTC(), timescale.ValidUntil().Format("2006-01-02"))
+	}
+}
+
+// flushLeapWarning prints the pending leap-second warning once.
+func flushLeapWarning(w io.Writer) {
+	leapMu.Lock()
+	defer leapMu.Unlock()
+	if leapPending != "" {
+		io.WriteString(w, leapPending)
+		leapPending = ""
+	}
+}
+
+// loadLeapSeconds reads --leap-seconds FILE (the IERS leap-seconds.list
+// format) into the time-scale table.
+func loadLeapSeconds(c *cli.Context) error {
+	path := lookupString(c, "leap-seconds")
+	if path == "" {
+		return nil
+	}
+	f, err := os.Open(path)
+	if err != nil {
+		return inputErrorf("give the path of an IERS leap-seconds.list", "--leap-seconds %q cannot be read: %v", path, unwrapPathError(err))
+	}
+	defer f.Close()
+	if err := timescale.ReadLeapSecondsList(f); err != nil {
+		return inputErrorf("give an unmodified IERS leap-seconds.list", "--leap-seconds %q: %v", path, strings.TrimPrefix(err.Error(), "timescale: "))
+	}
+	return nil
 }
 
 func parseEpoch(name, s string) (epoch, error) {

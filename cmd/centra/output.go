@@ -114,12 +114,15 @@ func unwrapPathError(err error) error {
 // finish commits the --out file when err is nil and removes it
 // otherwise. It returns err, or the commit's own error.
 func (o *output) finish(err error) error {
+	var ee *expectationError
+	if o != nil && (err == nil || errors.As(err, &ee)) {
+		flushLeapWarning(o.Stderr)
+	}
 	if o == nil || o.file == nil {
 		return err
 	}
 	name := o.file.Name()
 	defer untrackTemp(name)
-	var ee *expectationError
 	if errors.As(err, &ee) {
 		// A failed expectation is a verdict on a complete result: keep it.
 		if cerr := o.finish(nil); cerr != nil {
