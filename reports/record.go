@@ -140,13 +140,47 @@ func UnitOf(key string) string {
 	return u
 }
 
+// fixedDecimals gives the decimals tables print for units whose
+// resolution is absolute (1 mm, 1 nm/s, 1 ms, 1e-6 deg); 0 means use
+// significant digits.
+func fixedDecimals(key string) int {
+	switch UnitOf(key) {
+	case "km", "deg":
+		return 6
+	case "km/s":
+		return 9
+	case "s":
+		return 3
+	case "deg/day":
+		return 8
+	}
+	return 0
+}
+
+// formatField renders a numeric field for a table: fixed decimals for
+// keys with an absolute resolution, significant digits otherwise.
+func formatField(key string, x float64, digits int) string {
+	if d := fixedDecimals(key); d > 0 && math.Abs(x) < 1e12 {
+		s := strconv.FormatFloat(x, 'f', d, 64)
+		if strings.TrimLeft(s, "-0.") == "" {
+			return strconv.FormatFloat(0, 'f', d, 64) // no "-0.000000"
+		}
+		return s
+	}
+	return formatRounded(x, digits)
+}
+
 // tableText renders a value for a table cell.
 func tableText(v any, digits int) string {
+	return tableTextKey("", v, digits)
+}
+
+func tableTextKey(key string, v any, digits int) string {
 	switch x := v.(type) {
 	case nil:
 		return "-"
 	case float64:
-		return formatRounded(x, digits)
+		return formatField(key, x, digits)
 	case int:
 		return strconv.Itoa(x)
 	case bool:
@@ -157,7 +191,7 @@ func tableText(v any, digits int) string {
 	case string:
 		return x
 	case [3]float64:
-		return formatRounded(x[0], digits) + ", " + formatRounded(x[1], digits) + ", " + formatRounded(x[2], digits)
+		return formatField(key, x[0], digits) + ", " + formatField(key, x[1], digits) + ", " + formatField(key, x[2], digits)
 	}
 	return fmt.Sprint(v)
 }

@@ -205,7 +205,7 @@ func WriteSummaryTable(w io.Writer, r Record) error {
 		if label == "" {
 			label = f.Key
 		}
-		if err := t.Append(label, tableText(f.Value, f.Digits), UnitOf(f.Key), f.Key); err != nil {
+		if err := t.Append(label, tableTextKey(f.Key, f.Value, f.Digits), UnitOf(f.Key), f.Key); err != nil {
 			return err
 		}
 	}
@@ -247,7 +247,7 @@ func WriteListTable(w io.Writer, rows []Record) error {
 			case []Record, Record, []string:
 				continue
 			}
-			cells = append(cells, tableText(f.Value, f.Digits))
+			cells = append(cells, tableTextKey(f.Key, f.Value, f.Digits))
 		}
 		if err := t.Append(cells...); err != nil {
 			return err
