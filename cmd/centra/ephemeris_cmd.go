@@ -27,6 +27,7 @@ func ephemerisCommand() *cli.Command {
 	flags = append(flags,
 		&cli.StringFlag{Name: "frame", Value: "inertial", Usage: "output `FRAME`: inertial (GCRF), fixed (ITRF, Earth only) or geodetic (WGS 84 latitude, longitude, altitude; Earth only)"},
 		&cli.BoolFlag{Name: "checks", Usage: "add the conservation and Kepler-law checks of the propagation"},
+		&cli.BoolFlag{Name: "final", Usage: "print only the state at the end of the span, as one record (final_x_km, ..., final_radius_km; for --expect and 'centra sweep')"},
 		&cli.StringFlag{Name: "dut1", Value: "0", Usage: "UT1-UTC in `SECONDS` for the Earth-fixed frames (IERS Bulletin A), |DUT1| <= 0.9"},
 		&cli.StringFlag{Name: "object-name", Value: "SPACECRAFT", Usage: "OBJECT_NAME for --format oem"},
 		&cli.StringFlag{Name: "object-id", Value: "UNKNOWN", Usage: "OBJECT_ID for --format oem (international designator when there is one)"},
@@ -42,7 +43,8 @@ examples:
   centra --format csv ephemeris --altitude 500 --inclination 97.4 --span 7d --step 30s --out track.csv
   centra --format csv ephemeris --altitude 500 --inclination 97.4 --frame geodetic --span 2h --step 1min
   centra --format oem ephemeris --periapsis-alt 300 --apoapsis-alt 1200 --inclination 63.4 --object-name LARK-1
-  centra ephemeris --altitude 800 --inclination 98 --model zonal --degree 6 --span 3d --checks`,
+  centra ephemeris --altitude 800 --inclination 98 --model zonal --degree 6 --span 3d --checks
+  centra ephemeris --altitude 500 --inclination 51.6 --span 1d --final --checks`,
 		Description: `Propagates the orbit with the chosen force model (equations of motion from the
 Lagrangian of the point mass in the body's field, DOP853 with 7th-order dense
 output) and prints states at t = 0, step, 2 step, ... up to the end of the
@@ -54,7 +56,11 @@ utc,t_s,lat_deg,lon_deg,alt_km (geodetic). JSON: {"states":[{"utc","t_s",
 "position_km","velocity_km_s"}]} (geodetic: "lat_deg","lon_deg","alt_km").
 --format oem writes a CCSDS 502.0-B-2 Orbit Ephemeris Message (KVN).
 --checks adds energy and angular-momentum drift, the measured period, the
-equal-areas law, the measured apsides and (J2) the measured drift rates.`,
+equal-areas law, the measured apsides and (J2) the measured drift rates.
+--final prints one record instead of the rows: the state at the end of the
+span (final_x_km ... final_vz_km_s, or final_lat_deg, final_lon_deg,
+final_alt_km with --frame geodetic), final_radius_km, final_speed_km_s, the
+steps and evaluations, and with --checks NAME_relative_error for each check.`,
 		Flags:  flags,
 		Action: ephemerisAction,
 	}
@@ -102,7 +108,7 @@ func ephemerisAction(c *cli.Context) error {
 	if err != nil {
 		return err
 	}
-	if len(exps) > 0 && !c.Bool("checks") {
+	if len(exps) > 0 && !c.Bool("checks") && !c.Bool("final") {
 		return inputErrorf("add --checks: expectations apply to the check results of an ephemeris", "--expect needs --checks on ephemeris")
 	}
 	o, err := openOutput(c, "table", "csv", "json", "oem")
@@ -114,6 +120,12 @@ func ephemerisAction(c *cli.Context) error {
 	}
 	for _, w := range spec.Warnings {
 		o.warn("%s", w)
+	}
+	if c.Bool("final") {
+		if o.Format == "oem" {
+			return o.finish(inputErrorf("drop --format oem or --final", "--final prints one record, not an OEM"))
+		}
+		return o.finish(ephemerisFinal(o, spec, ms, span, frame, dut1, c.Bool("checks"), exps))
 	}
 	err = writeEphemeris(o, c, spec, ms, span, step, frame, dut1, exps)
 	return o.finish(err)

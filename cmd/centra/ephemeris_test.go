@@ -164,3 +164,24 @@ func TestEphemerisExpectOnChecks(t *testing.T) {
 		t.Errorf("failing expectation: exit %d, want 1", code)
 	}
 }
+
+// The orbit command's sub-satellite point is the first row of the
+// geodetic ephemeris (the frames themselves are checked against ERFA in
+// bodies/earthframe and bodies/geodesy).
+func TestSubSatellitePointMatchesGeodeticEphemeris(t *testing.T) {
+	args := "--epoch 2027-01-01T00:00:00Z --altitude 500 --inclination 51.6 --true-anomaly 30"
+	out, stderr, code := runBinary(t, append([]string{"--format", "json", "orbit"}, strings.Fields(args)...)...)
+	if code != 0 {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	var m map[string]any
+	json.Unmarshal([]byte(out), &m)
+	csvText, _, _ := runBinary(t, append([]string{"--format", "csv", "ephemeris", "--frame", "geodetic", "--span", "1min", "--step", "1min"}, strings.Fields(args)...)...)
+	rows, _ := csv.NewReader(strings.NewReader(csvText)).ReadAll()
+	for i, key := range []string{"subsatellite_lat_deg", "subsatellite_lon_deg", "geodetic_alt_km"} {
+		want, _ := strconv.ParseFloat(rows[1][2+i], 64)
+		if got, _ := m[key].(float64); math.Abs(got-want) > 1e-9 {
+			t.Errorf("%s = %v, geodetic ephemeris says %v", key, got, want)
+		}
+	}
+}

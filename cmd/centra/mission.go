@@ -363,7 +363,16 @@ func (mr *missionRun) args(i int) (cmdName, title string, argv []string, err err
 			if !ok {
 				return "", "", nil, missionError(mr.file, keyLine(mr.data, "output", i, "site"), "output.site", fmt.Sprintf("no site with id %q", id), "use the id of a [[site]] table")
 			}
-			add("site", siteText(st))
+			if cmdName == "passes" {
+				// passes names its sites (NAME=LAT,LON,ALT_M) and pairs
+				// --min-elevation with --site by order, so every site gets one.
+				add("site", id+"="+siteText(st))
+				if _, ok := st["min_elevation"]; !ok {
+					add("min-elevation", "0")
+				}
+			} else {
+				add("site", siteText(st))
+			}
 			if me, ok := st["min_elevation"]; ok && accepted["min-elevation"] {
 				v, _ := flagText(me)
 				add("min-elevation", v)

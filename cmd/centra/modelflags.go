@@ -16,12 +16,12 @@ import (
 // command that propagates.
 func modelFlags() []cli.Flag {
 	cat := "Force model"
-	return []cli.Flag{
+	return append([]cli.Flag{
 		&cli.StringFlag{Name: "model", Usage: "gravity `MODEL`: point, j2 or zonal (default j2, or point for a body without J2)", Category: cat},
 		&cli.StringFlag{Name: "degree", Usage: "highest zonal degree `N` for --model zonal, 2..6 (default: the body's highest published, at most 6)", Category: cat},
 		&cli.StringFlag{Name: "tolerance", Usage: "relative local error `TOL` of the integrator, 1e-15..1e-3", Value: "1e-10", Category: cat},
 		&cli.StringFlag{Name: "equations", Usage: "`HOW` the equations of motion are evaluated: fast (closed-form accelerations, proven equal to the engine's), engine (Euler-Lagrange equations derived by the Lagrangian engine) or polar (engine in plane polar coordinates; point mass only)", Value: "fast", Category: cat},
-	}
+	}, perturbationFlags()...)
 }
 
 // modelSpec is a parsed model: what to build and how to describe it.
@@ -30,13 +30,13 @@ type modelSpec struct {
 	Options propagate.Options
 	Name    string // "point", "j2", "zonal"
 	Degree  int
-	Label   string // for titles: "J2", "zonal degree 4"
+	Label   string    // for titles: "J2", "zonal degree 4"
+	Forces  forceSpec // drag, third bodies, radiation pressure (forceflags.go)
 }
 
 // parseModel reads the model flags for body b; ep is the epoch of the
 // initial state (t = 0 of the propagation).
 func parseModel(c *cli.Context, b *bodies.Body, ep epoch) (*modelSpec, error) {
-	_ = ep // perturbations that need absolute time (Sun, Moon) bind to it
 	name := strings.ToLower(strings.TrimSpace(c.String("model")))
 	if name == "" {
 		name = "point"
@@ -106,6 +106,9 @@ func parseModel(c *cli.Context, b *bodies.Body, ep epoch) (*modelSpec, error) {
 		ms.Options.Equations = propagate.EnginePolar
 	default:
 		return nil, inputErrorf("use --equations fast, engine or polar", "--equations %q is not known", c.String("equations"))
+	}
+	if err := parsePerturbations(c, b, ep, ms); err != nil {
+		return nil, err
 	}
 	return ms, nil
 }

@@ -6,6 +6,8 @@ import (
 
 	"github.com/urfave/cli/v2"
 
+	"centra/bodies/earthframe"
+	"centra/bodies/geodesy"
 	"centra/orbit"
 	"centra/reports"
 )
@@ -114,11 +116,29 @@ func orbitRecord(spec *orbitSpec, s orbit.Summary, checks []orbit.Check) reports
 		reports.Opt("raan_rate_deg_day", "RAAN drift (J2, secular)", s.RAANRate*daily, s.HasJ2Rates, 8),
 		reports.Opt("arg_periapsis_rate_deg_day", "periapsis drift (J2, secular)", s.ArgPeriapsisRate*daily, s.HasJ2Rates, 8),
 	}
+	rec = append(rec, designFields(spec)...)
+	rec = append(rec, subSatelliteFields(spec)...)
 	rec = append(rec, reports.Field{Key: "checks", Value: checkRecords(checks)})
 	if len(spec.Warnings) > 0 {
 		rec = append(rec, reports.Field{Key: "warnings", Value: spec.Warnings})
 	}
 	return rec
+}
+
+// subSatelliteFields gives the geodetic point below an Earth orbiter at
+// the epoch (WGS 84, ITRF with polar motion ignored, DUT1 = 0).
+func subSatelliteFields(spec *orbitSpec) []reports.Field {
+	if spec.Body.Name != "earth" {
+		return nil
+	}
+	rot := earthframe.NewRotation(spec.Epoch, 0)
+	rf := rot.ToITRF(spec.State.R)
+	lat, lon, h := geodesy.WGS84.FromECEF(rf)
+	return []reports.Field{
+		reports.Num("subsatellite_lat_deg", "sub-satellite latitude at epoch (geodetic)", lat*rad2deg, 8),
+		reports.Num("subsatellite_lon_deg", "sub-satellite longitude at epoch", lon*rad2deg, 8),
+		reports.Num("geodetic_alt_km", "height above the WGS 84 ellipsoid at epoch", h, 10),
+	}
 }
 
 func checkRecords(checks []orbit.Check) []reports.Record {

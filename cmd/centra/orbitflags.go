@@ -31,6 +31,8 @@ func orbitFlags() []cli.Flag {
 		&cli.StringFlag{Name: "true-anomaly", Usage: "true anomaly `ANGLE` at epoch (default 0)", Category: cat},
 		&cli.StringFlag{Name: "mean-anomaly", Usage: "mean anomaly `ANGLE` at epoch (hyperbolic mean anomaly for e > 1)", Category: cat},
 		&cli.BoolFlag{Name: "sun-synchronous", Usage: "solve the inclination that makes the orbit sun-synchronous (J2)", Category: cat},
+		&cli.StringFlag{Name: "repeat", Usage: "solve the mean semi-major axis of a repeat ground track of `REVS/DAYS` revolutions in nodal days (J2; circular unless --eccentricity or --frozen)", Category: cat},
+		&cli.BoolFlag{Name: "frozen", Usage: "solve the frozen eccentricity and argument of periapsis (J2, J3) for --altitude, --semi-major-axis or --repeat", Category: cat},
 		&cli.StringFlag{Name: "from-opm", Usage: "read body, epoch and state from a CCSDS Orbit Parameter Message (KVN) `FILE`", Category: cat},
 	}
 }
@@ -46,6 +48,8 @@ type orbitSpec struct {
 	Warnings []string
 	// Spacecraft holds what an OPM says about the spacecraft.
 	Spacecraft opmSpacecraft
+	// Design is set by --repeat and --frozen (designflags.go).
+	Design *orbitDesign
 }
 
 var shapeForms = []struct {
@@ -57,9 +61,10 @@ var shapeForms = []struct {
 	{"--semi-major-axis/--eccentricity", []string{"semi-major-axis"}},
 	{"--position/--velocity", []string{"position", "velocity"}},
 	{"--from-opm", []string{"from-opm"}},
+	{"--repeat", []string{"repeat"}},
 }
 
-const shapeFix = "give exactly one of --altitude H | --periapsis-alt H --apoapsis-alt H | --semi-major-axis A --eccentricity E | --position X,Y,Z --velocity VX,VY,VZ | --from-opm FILE"
+const shapeFix = "give exactly one of --altitude H | --periapsis-alt H --apoapsis-alt H | --semi-major-axis A --eccentricity E | --position X,Y,Z --velocity VX,VY,VZ | --from-opm FILE | --repeat REVS/DAYS"
 
 // parseOrbit reads the orbit flags of c.
 func parseOrbit(c *cli.Context) (*orbitSpec, error) {
@@ -95,6 +100,9 @@ func parseOrbit(c *cli.Context) (*orbitSpec, error) {
 	}
 	spec.Given = given[0]
 	mu, re := body.GM, body.EquatorialRadius
+	if spec.Given == "--repeat" || c.Bool("frozen") {
+		return designOrbit(c, spec)
+	}
 	if spec.Given == "--from-opm" {
 		if err := stateFromOPM(c, spec); err != nil {
 			return nil, err

@@ -36,7 +36,10 @@ type DispersionData struct {
 	// at the mean impact point, km.
 	East, North      []float64
 	MeanLat, MeanLon float64 // mean impact point, rad
-	Sigma1, Sigma3   Ellipse
+	// CentreEast and CentreNorth (km) centre the ellipses: the mean of
+	// East and North.
+	CentreEast, CentreNorth float64
+	Sigma1, Sigma3          Ellipse
 	// Nominal, when HasNominal, is the impact point of the undispersed
 	// arc in the same plane, km.
 	NominalEast, NominalNorth float64
@@ -73,6 +76,15 @@ func Dispersion(d DispersionData) (*Figure, error) {
 		ext.add(pts[i].X, pts[i].Y)
 	}
 	e1, e3 := d.Sigma1.Points(180), d.Sigma3.Points(180)
+	if !finite(d.CentreEast, d.CentreNorth) {
+		return nil, fmt.Errorf("%w: ellipse centre not finite", ErrData)
+	}
+	for _, e := range []plotter.XYs{e1, e3} {
+		for i := range e {
+			e[i].X += d.CentreEast
+			e[i].Y += d.CentreNorth
+		}
+	}
 	view := ext
 	for _, q := range e3 {
 		view.add(q.X, q.Y)
@@ -106,7 +118,6 @@ func Dispersion(d DispersionData) (*Figure, error) {
 	p.Add(line(e1, 1.6, viewInk))
 	p.Add(line(e3, 1.6, periInk, 5, 3))
 	mean := &marker{Style: glyph(draw.CrossGlyph{}, 5, ink)}
-	p.Add(mean)
 	legend := []LegendEntry{}
 	cases := fmt.Sprintf("impact point (%s cases)", groupDigits(float64(n)))
 	if shown < n {
@@ -121,6 +132,7 @@ func Dispersion(d DispersionData) (*Figure, error) {
 		p.Add(nom)
 		legend = append(legend, LegendEntry{Label: "nominal (undispersed) impact", Thumbs: []plotThumb{nom}})
 	}
+	p.Add(mean)
 	legend = append(legend,
 		LegendEntry{Label: ellipseText("1σ", d.Sigma1, 1), Thumbs: []plotThumb{thumbLine(1.6, viewInk)}},
 		LegendEntry{Label: ellipseText("3σ", d.Sigma3, 3), Thumbs: []plotThumb{thumbLine(1.6, periInk, 5, 3)}},

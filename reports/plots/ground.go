@@ -77,10 +77,7 @@ func GroundTrack(d GroundData) (*Figure, error) {
 	p.Add(frame)
 	p.Add(line(plotter.XYs{{X: -180, Y: 0}, {X: 180, Y: 0}}, 0.7, noteInk))
 
-	legend := []LegendEntry{
-		{Label: "sunlit", Thumbs: []plotThumb{styled(litStyle)}},
-		{Label: "in the Earth's shadow", Thumbs: []plotThumb{styled(shadowStyle)}},
-	}
+	var legend []LegendEntry
 
 	// Visibility circles under the track.
 	for _, s := range d.Sites {
@@ -105,10 +102,6 @@ func GroundTrack(d GroundData) (*Figure, error) {
 		}
 	}
 	if len(d.Sites) > 0 {
-		legend = append(legend,
-			LegendEntry{Label: "in view of a site", Thumbs: []plotThumb{styled(viewStyle)}},
-			LegendEntry{Label: "in view, in shadow", Thumbs: []plotThumb{styled(viewShadow)}},
-		)
 		if len(d.Sites[0].Circle) > 0 {
 			legend = append(legend, LegendEntry{
 				Label:  fmt.Sprintf("visibility at el ≥ %s° for h = %s km (spherical Earth)", trimFloat(d.Sites[0].MinElevation*rad2deg, 1), groupDigits(round(d.Sites[0].CircleAlt, 0))),
@@ -132,6 +125,8 @@ func GroundTrack(d GroundData) (*Figure, error) {
 		return s
 	}
 	styles := [4]draw.LineStyle{litStyle, shadowStyle, viewStyle, viewShadow}
+	names := [4]string{"sunlit", "in the Earth's shadow (umbra)", "in view of a site", "in view, in shadow"}
+	var used [4]bool
 	var lines []plotter.XYs
 	start := 0
 	for i := 1; i < len(pts); i++ {
@@ -142,6 +137,7 @@ func GroundTrack(d GroundData) (*Figure, error) {
 		for _, q := range pts[start : i+1] {
 			run = append(run, plotter.XY{X: q.Lon * rad2deg, Y: q.Lat * rad2deg})
 		}
+		used[style(start)] = true
 		for _, seg := range SplitAtDateLine(run) {
 			l := &plotter.Line{XYs: seg, LineStyle: styles[style(start)]}
 			p.Add(l)
@@ -149,6 +145,14 @@ func GroundTrack(d GroundData) (*Figure, error) {
 		}
 		start = i
 	}
+
+	var styleLegend []LegendEntry
+	for k := range styles {
+		if used[k] {
+			styleLegend = append(styleLegend, LegendEntry{Label: names[k], Thumbs: []plotThumb{styled(styles[k])}})
+		}
+	}
+	legend = append(styleLegend, legend...)
 
 	// Start of the track and the sites on top.
 	s0 := pts[0]

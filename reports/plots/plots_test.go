@@ -82,7 +82,15 @@ func groundFigure(t testing.TB, span, step float64) (*plots.Figure, *track.Groun
 	if err != nil {
 		t.Fatal(err)
 	}
-	sites := []track.Site{{Name: "A", Site: site, MinElevation: 10 * deg}, {Name: "B", Site: geodesy.Site{Lat: -77.8 * deg, Lon: 166.7 * deg}, MinElevation: 5 * deg}}
+	a, err := visibility.NewSite("A", site, 10*deg, nil, false)
+	if err != nil {
+		t.Fatal(err)
+	}
+	b, err := visibility.NewSite("B", geodesy.Site{Lat: -77.8 * deg, Lon: 166.7 * deg}, 5*deg, nil, false)
+	if err != nil {
+		t.Fatal(err)
+	}
+	sites := []visibility.Site{a, b}
 	g, err := track.Ground(tr, epoch, 0, earthRe, sites)
 	if err != nil {
 		t.Fatal(err)
@@ -93,11 +101,12 @@ func groundFigure(t testing.TB, span, step float64) (*plots.Figure, *track.Groun
 		if err != nil {
 			t.Fatal(err)
 		}
-		ring, err := track.VisibilityCircle(s.Site.Lat, s.Site.Lon, lambda, 180)
+		ss := s.Station.Site
+		ring, err := track.VisibilityCircle(ss.Lat, ss.Lon, lambda, 180)
 		if err != nil {
 			t.Fatal(err)
 		}
-		d.Sites = append(d.Sites, plots.GroundSite{Name: s.Name, Lat: s.Site.Lat, Lon: s.Site.Lon, MinElevation: s.MinElevation, Circle: ring, CircleAlt: g.MeanAlt})
+		d.Sites = append(d.Sites, plots.GroundSite{Name: s.Name, Lat: ss.Lat, Lon: ss.Lon, MinElevation: s.MinElevation, Circle: ring, CircleAlt: g.MeanAlt})
 	}
 	fig, err := plots.GroundTrack(d)
 	if err != nil {

@@ -37,7 +37,13 @@ type SkyData struct {
 	Header
 	Site         string  // name of the site, with its coordinates
 	MinElevation float64 // rad: the threshold of a pass
-	Passes       []SkyPass
+	// Threshold, when not nil, is the threshold around the horizon (a
+	// terrain mask, raised to MinElevation), drawn instead of the ring
+	// of MinElevation.
+	Threshold []track.SkyPoint
+	// Refraction says that the elevations are apparent (refracted).
+	Refraction bool
+	Passes     []SkyPass
 }
 
 // maxSkyTimeLabels is the number of passes whose AOS and LOS carry their
@@ -54,7 +60,7 @@ var passInks = []color.NRGBA{
 // north up, east right, zenith at the centre, horizon on the rim, with
 // AOS and LOS marked and labelled with their UTC times.
 func Sky(d SkyData) (*Figure, error) {
-	if !(d.MinElevation >= 0 && d.MinElevation < math.Pi/2) {
+	if !(d.MinElevation >= -10*math.Pi/180 && d.MinElevation <= math.Pi/2) {
 		return nil, fmt.Errorf("%w: minimum elevation %g rad", ErrData, d.MinElevation)
 	}
 	for i, ps := range d.Passes {
@@ -110,9 +116,24 @@ func Sky(d SkyData) (*Figure, error) {
 	}
 	p.Add(line(ring(0), 1.0, ink))
 	legend := []LegendEntry{}
-	if d.MinElevation > 0 {
+	switch {
+	case len(d.Threshold) > 1:
+		xys := make(plotter.XYs, 0, len(d.Threshold))
+		for _, q := range d.Threshold {
+			if !finite(q.Az, q.El) {
+				return nil, fmt.Errorf("%w: non-finite threshold", ErrData)
+			}
+			x, y := SkyXY(q.Az, math.Max(q.El, -0.05))
+			xys = append(xys, plotter.XY{X: x, Y: y})
+		}
+		p.Add(line(xys, 1.0, noteInk, 4, 3))
+		legend = append(legend, LegendEntry{Label: fmt.Sprintf("terrain mask (at least %s°)", trimFloat(d.MinElevation*rad2deg, 2)), Thumbs: []plotThumb{thumbLine(1.0, noteInk, 4, 3)}})
+	case d.MinElevation > 0:
 		p.Add(line(ring(d.MinElevation), 0.9, noteInk, 4, 3))
 		legend = append(legend, LegendEntry{Label: fmt.Sprintf("minimum elevation %s°", trimFloat(d.MinElevation*rad2deg, 2)), Thumbs: []plotThumb{thumbLine(0.9, noteInk, 4, 3)}})
+	}
+	if d.Refraction {
+		legend = append(legend, LegendEntry{Label: "elevations apparent (refraction applied)"})
 	}
 
 	labelTimes := len(d.Passes) <= maxSkyTimeLabels
@@ -142,7 +163,7 @@ func Sky(d SkyData) (*Figure, error) {
 		if labelTimes {
 			labels.Movable = append(labels.Movable, edgeLabel(a.X, a.Y, num+" AOS "+clock(ps.AOS), clr), edgeLabel(l.X, l.Y, num+" LOS "+clock(ps.LOS), clr))
 		}
-		txt := fmt.Sprintf("%s: %s to %s UTC\n    max el %s°", num, dateClock(ps.AOS), clock(ps.LOS), trimFloat(ps.MaxElevation*rad2deg, 1))
+		txt := fmt.Sprintf("%s: %s to %s UTC\nmax el %s°", num, dateClock(ps.AOS), clock(ps.LOS), trimFloat(ps.MaxElevation*rad2deg, 1))
 		if !ps.Sunlit {
 			txt += ", in shadow"
 		}

@@ -270,7 +270,7 @@ func parseList(s string, v Vary, rest string) (Vary, error) {
 			numeric = false
 		}
 	}
-	v.list = items
+	v.list, v.n = items, len(items)
 	if !numeric {
 		return v, nil
 	}
@@ -278,7 +278,7 @@ func parseList(s string, v Vary, rest string) (Vary, error) {
 	if err != nil {
 		return Vary{}, err
 	}
-	v.Unit, v.numeric, v.n = unit, true, len(items)
+	v.Unit, v.numeric = unit, true
 	v.nums = make([]float64, len(nums))
 	for i, n := range nums {
 		v.nums[i] = n.v
@@ -287,12 +287,7 @@ func parseList(s string, v Vary, rest string) (Vary, error) {
 }
 
 // Len returns the number of values of the dimension.
-func (v Vary) Len() int {
-	if v.nums == nil && v.list != nil {
-		return len(v.list)
-	}
-	return v.n
-}
+func (v Vary) Len() int { return v.n }
 
 // Numeric reports whether the values are numbers (in [Vary.Unit]).
 func (v Vary) Numeric() bool { return v.numeric }
