@@ -208,3 +208,18 @@ func TestOutFileAtomic(t *testing.T) {
 		t.Errorf("missing dir: exit %d, %q", code, stderr)
 	}
 }
+
+// A bare number in --expect takes the unit of its key: days for _days.
+func TestExpectBareUnits(t *testing.T) {
+	for _, c := range []struct{ key, val, want string }{
+		{"lifetime_days", "300±10%", "300d±10%"},
+		{"lifetime_days", "300+-5", "300d+-5d"},
+		{"alt_m", "612±1", "612m±1m"},
+		{"period_s", "5000±1", "5000±1"},
+		{"lifetime_days", "2y±1d", "2y±1d"},
+	} {
+		if got := withBareUnit(c.val, bareUnit(c.key)); got != c.want {
+			t.Errorf("withBareUnit(%q) for %s = %q, want %q", c.val, c.key, got, c.want)
+		}
+	}
+}

@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 	"sort"
+	"strconv"
 	"strings"
 
 	"github.com/urfave/cli/v2"
@@ -51,6 +52,42 @@ func keyKind(key string) (quantity.Kind, float64) {
 	return quantity.Scalar, 1
 }
 
+// bareUnit is the unit a bare number takes for key when it differs from
+// the parser's default for the key's kind (days for _days, metres for _m).
+func bareUnit(key string) string {
+	switch {
+	case strings.HasSuffix(key, "_days"):
+		return "d"
+	case strings.HasSuffix(key, "_m"):
+		return "m"
+	}
+	return ""
+}
+
+// withBareUnit appends unit to the value and tolerance of VALUE±TOL when
+// they are bare numbers.
+func withBareUnit(val, unit string) string {
+	if unit == "" {
+		return val
+	}
+	sep := "±"
+	if !strings.Contains(val, sep) {
+		sep = "+-"
+	}
+	v, t, ok := strings.Cut(val, sep)
+	if !ok {
+		return val
+	}
+	bare := func(x string) string {
+		x = strings.TrimSpace(x)
+		if _, err := strconv.ParseFloat(x, 64); err == nil {
+			return x + unit
+		}
+		return x
+	}
+	return bare(v) + sep + bare(t)
+}
+
 // parseExpectations reads every --expect of the command.
 func parseExpectations(c *cli.Context) ([]expectation, error) {
 	var out []expectation
@@ -61,7 +98,7 @@ func parseExpectations(c *cli.Context) ([]expectation, error) {
 			return nil, inputErrorf("write --expect NAME=VALUE±TOL, for example --expect period_s=5554±1", "--expect %q has no NAME=", text)
 		}
 		kind, scale := keyKind(key)
-		tol, err := quantity.ParseTolerance(kind, val)
+		tol, err := quantity.ParseTolerance(kind, withBareUnit(val, bareUnit(key)))
 		if err != nil {
 			var qe *quantity.Error
 			hint := "write --expect NAME=VALUE±TOL, for example --expect period_s=92.6min±1s"

@@ -9,7 +9,7 @@
 //	Length    km    (accepts km, m, au; bare numbers are km)
 //	Speed     km/s  (accepts km/s, m/s; bare numbers are km/s)
 //	Angle     rad   (accepts deg, rad; bare numbers are degrees)
-//	Duration  s     (accepts ms, s, min, h, d, combinable as 1d6h30min; bare numbers are s)
+//	Duration  s     (accepts ms, s, min, h, d, y (Julian year, 365.25 d), combinable as 1d6h30min; bare numbers are s)
 //	Mass      kg, Area m^2, Frequency MHz, Scalar (no unit allowed)
 //
 // The astronomical unit is the IAU 2012 Resolution B2 value,

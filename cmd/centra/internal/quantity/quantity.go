@@ -41,7 +41,7 @@ var units = map[Kind]map[string]float64{
 	Length:    {"": 1, "km": 1, "m": 1e-3, "au": AU},
 	Speed:     {"": 1, "km/s": 1, "m/s": 1e-3},
 	Angle:     {"": math.Pi / 180, "deg": math.Pi / 180, "rad": 1},
-	Duration:  {"": 1, "ms": 1e-3, "s": 1, "min": 60, "h": 3600, "d": 86400},
+	Duration:  {"": 1, "ms": 1e-3, "s": 1, "min": 60, "h": 3600, "d": 86400, "y": 31557600},
 	Mass:      {"": 1, "kg": 1},
 	Area:      {"": 1, "m2": 1, "m^2": 1},
 	Frequency: {"": 1, "mhz": 1, "ghz": 1e3, "khz": 1e-3},
@@ -100,7 +100,7 @@ func (e *Error) Unwrap() error { return e.Err }
 func unitHint(k Kind) string {
 	u := units[k]
 	var names []string
-	for _, n := range []string{"km", "m", "au", "km/s", "m/s", "deg", "rad", "ms", "s", "min", "h", "d", "kg", "m2", "MHz", "GHz", "kHz", "deg/day"} {
+	for _, n := range []string{"km", "m", "au", "km/s", "m/s", "deg", "rad", "ms", "s", "min", "h", "d", "y", "kg", "m2", "MHz", "GHz", "kHz", "deg/day"} {
 		if _, ok := u[strings.ToLower(n)]; ok {
 			names = append(names, n)
 		}
