@@ -47,7 +47,7 @@ func lambertCommand() *cli.Command {
 examples:
   centra lambert --r1 15945.34,0,0 --r2 12214.83899,10249.46731,0 --tof 76min
   centra --format json lambert --r1 7000,0,0 --r2 -1389.19,6302.77,4727.08 --tof 5h --revs 1 --branch short
-  centra lambert --r1 7000,0,0 --r2 0,42164,0 --tof 5h15min --v1-before 0,7.546,0 --v2-after -3.0747,0,0
+  centra lambert --r1 7000,0,0 --r2 -42003.6,3674.8,0 --tof 5h --v1-before 0,7.546,0 --v2-after -0.26797,-3.063,0
   centra lambert --r1 15945.34,0,0 --r2 12214.83899,10249.46731,0 --tof 76min --expect v1_x_km_s=2.058913±1e-6`,
 		Description: `Solves Lambert's problem about one body: the two-body (point-mass) orbit that
 leaves --r1 and reaches --r2 after --tof, and its velocities v1 at r1 and v2

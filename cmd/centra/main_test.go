@@ -56,6 +56,23 @@ func runBinary(t *testing.T, args ...string) (string, string, int) {
 	return out.String(), errb.String(), code
 }
 
+// runBinaryIn runs the built program in directory dir.
+func runBinaryIn(t *testing.T, dir string, args ...string) (string, string, int) {
+	t.Helper()
+	cmd := exec.Command(binary, args...)
+	cmd.Dir = dir
+	var out, errb bytes.Buffer
+	cmd.Stdout, cmd.Stderr = &out, &errb
+	err := cmd.Run()
+	code := 0
+	if ee, ok := err.(*exec.ExitError); ok {
+		code = ee.ExitCode()
+	} else if err != nil {
+		t.Fatalf("running centra %v: %v", args, err)
+	}
+	return out.String(), errb.String(), code
+}
+
 // runApp runs the app in-process.
 func runApp(args ...string) (string, string, int) {
 	var out, errb bytes.Buffer

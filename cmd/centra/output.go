@@ -115,7 +115,7 @@ func unwrapPathError(err error) error {
 // otherwise. It returns err, or the commit's own error.
 func (o *output) finish(err error) error {
 	var ee *expectationError
-	if o != nil && (err == nil || errors.As(err, &ee)) {
+	if o != nil && o.Stderr != nil && (err == nil || errors.As(err, &ee)) {
 		flushLeapWarning(o.Stderr)
 	}
 	if o == nil || o.file == nil {

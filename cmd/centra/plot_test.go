@@ -8,7 +8,6 @@ import (
 	_ "image/png"
 	"io"
 	"os"
-	"os/exec"
 	"path/filepath"
 	"strings"
 	"testing"
@@ -186,19 +185,3 @@ func TestPlotTableSummary(t *testing.T) {
 	golden(t, "plot/altitude_table", out)
 }
 
-// runBinaryIn is runBinary in the working directory dir.
-func runBinaryIn(t *testing.T, dir string, args ...string) (string, string, int) {
-	t.Helper()
-	cmd := exec.Command(binary, args...)
-	cmd.Dir = dir
-	var out, errb bytes.Buffer
-	cmd.Stdout, cmd.Stderr = &out, &errb
-	err := cmd.Run()
-	code := 0
-	if ee, ok := err.(*exec.ExitError); ok {
-		code = ee.ExitCode()
-	} else if err != nil {
-		t.Fatalf("running centra %v: %v", args, err)
-	}
-	return out.String(), errb.String(), code
-}

@@ -609,6 +609,9 @@ func transferError(s *transferSpec, err error) error {
 	if errors.Is(err, transfer.ErrMassRatio) {
 		return inputErrorf("check --isp and the delta-v: no rocket reaches it", "the mass ratio of this delta-v at --isp %g s is too large to represent", s.isp)
 	}
+	if errors.Is(err, transfer.ErrRange) {
+		return inputErrorf("give orbits of a physical size", "the orbits are so large that the result is out of floating-point range")
+	}
 	msg := err.Error()
 	msg = strings.TrimPrefix(msg, "transfer: ")
 	return inputErrorf("check the orbits and the manoeuvre", "%s", msg)

@@ -57,9 +57,9 @@ func refBody(t *testing.T, mu float64) (name string, re float64) {
 // transferRef is testdata/transfer/reference.json, the parts used here.
 type transferRef struct {
 	Hohmann []struct {
-		Name                      string
-		Mu, R1, R2                float64
-		DV1, DV2, DVTotal, TOF    float64
+		Name                   string
+		Mu, R1, R2             float64
+		DV1, DV2, DVTotal, TOF float64
 	} `json:"hohmann"`
 	BiElliptic []struct {
 		Name                        string
@@ -67,31 +67,31 @@ type transferRef struct {
 		DV1, DV2, DV3, DVTotal, TOF float64
 	} `json:"bielliptic"`
 	Apsis []struct {
-		Name                         string
-		Mu, RP1, RA1, RDep, RArr     float64
-		RP2, RA2                     float64
-		DV1, DV2, DVTotal, TOF       float64
-		Isp, M0, Propellant          float64
+		Name                     string
+		Mu, RP1, RA1, RDep, RArr float64
+		RP2, RA2                 float64
+		DV1, DV2, DVTotal, TOF   float64
+		Isp, M0, Propellant      float64
 	} `json:"apsis"`
 	Combined []struct {
-		Name                         string
-		Mu, R1, R2, DI, Split        float64
-		DI1, DI2, DV1, DV2, DVTotal  float64
-		AllFirst                     float64 `json:"dv_all_at_first"`
-		AllSecond                    float64 `json:"dv_all_at_second"`
-		TOF                          float64
+		Name                        string
+		Mu, R1, R2, DI, Split       float64
+		DI1, DI2, DV1, DV2, DVTotal float64
+		AllFirst                    float64 `json:"dv_all_at_first"`
+		AllSecond                   float64 `json:"dv_all_at_second"`
+		TOF                         float64
 	} `json:"combined"`
 	Phasing []struct {
-		Name                                string
-		Mu, R, Theta                        float64
-		Revs                                int
-		Period, Periapsis, Apoapsis         float64
-		DV1, DV2, DVTotal, Time             float64
+		Name                        string
+		Mu, R, Theta                float64
+		Revs                        int
+		Period, Periapsis, Apoapsis float64
+		DV1, DV2, DVTotal, Time     float64
 	} `json:"phasing"`
 	PlaneChange []struct {
-		Name              string
+		Name               string
 		Mu, RP, RA, Nu, DI float64
-		DV                float64
+		DV                 float64
 	} `json:"plane_change"`
 	Crossover struct {
 		RBInfinite float64 `json:"rb_infinite"`
