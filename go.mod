@@ -7,6 +7,7 @@ require (
 	github.com/olekukonko/tablewriter v1.1.5
 	github.com/urfave/cli/v2 v2.27.7
 	gonum.org/v1/gonum v0.17.0
+	gonum.org/v1/plot v0.17.0
 )
 
 require (
@@ -32,5 +33,4 @@ require (
 	golang.org/x/image v0.30.0 // indirect
 	golang.org/x/sys v0.30.0 // indirect
 	golang.org/x/text v0.28.0 // indirect
-	gonum.org/v1/plot v0.17.0 // indirect
 )

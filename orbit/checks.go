@@ -23,7 +23,8 @@ const CheckTolerance = 1e-9
 //   - second_law_areal_rate: the area swept by the radius vector while
 //     [Propagate] advances the state by tau (adaptive quadrature of
 //     r(nu)^2/2 between the two true anomalies), divided by tau, against
-//     |r x v|/2;
+//     |r x v|/2 (for an ellipse the quadrature runs over the eccentric
+//     anomalies of the two true anomalies, where the integrand is smooth);
 //   - third_law_period (ellipses only: open orbits have no period and the
 //     check is omitted): 2 pi sqrt(a^3/mu) with a = -mu/(2 eps) from the
 //     energy, against 2 pi tau/Delta M, the mean motion measured from the
@@ -37,7 +38,8 @@ const CheckTolerance = 1e-9
 //     sqrt(mu a (1-e^2)) with a from the energy and e from the
 //     eccentricity vector, against |r x v|.
 //
-// For open orbits tau is one unit of the mean anomaly, 1/n. Every check is
+// For open orbits tau is the shorter of p sqrt(p/mu) and one unit of the
+// hyperbolic mean anomaly, sqrt(|a|^3/mu). Every check is
 // held to [CheckTolerance]. Errors are those of [ElementsFromState] and
 // [Propagate].
 func KeplerChecks(mu float64, s State) ([]Check, error) {
@@ -81,6 +83,14 @@ func KeplerChecks(mu float64, s State) ([]Check, error) {
 		tau = T / 4
 	} else {
 		tau = p * math.Sqrt(p/mu)
+		// A hyperbola far from the parabola covers (e^2-1)^(3/2) units of
+		// mean anomaly in that time (10^9 for e = 1000), running out to
+		// where the integrand r^2 is ill-conditioned; one unit, 1/n, keeps
+		// the interval short.
+		if eps > 0 {
+			aE := mu / (2 * eps) // |a|
+			tau = math.Min(tau, aE*math.Sqrt(aE/mu))
+		}
 	}
 	s1, err := Propagate(mu, s, tau)
 	if err != nil {
@@ -94,7 +104,18 @@ func KeplerChecks(mu float64, s State) ([]Check, error) {
 	nu0 := el.Nu
 	nu1 := nu0 + dnu
 	rOf := func(nu float64) float64 { x := p / (1 + e*math.Cos(nu)); return x * x / 2 }
-	area := integrate(rOf, nu0, nu1, 1e-14)
+	var area float64
+	if closed {
+		// The same integral in the eccentric anomaly of the two true
+		// anomalies, r^2 dnu = a b (1 - e cos E) dE: smooth, where r(nu)^2
+		// peaks by ((1+e)/(1-e))^2 at apoapsis and defeats the quadrature
+		// for e near 1.
+		E0, E1 := EccentricFromTrue(nu0, e), EccentricFromTrue(nu1, e)
+		ab := p * p / math.Pow((1-e)*(1+e), 1.5)
+		area = integrate(func(E float64) float64 { return ab * (1 - e*math.Cos(E)) / 2 }, E0, E1, 1e-14)
+	} else {
+		area = integrate(rOf, nu0, nu1, 1e-14)
+	}
 	add("second_law_areal_rate", "Kepler II: area swept over an interval of analytic propagation / its duration vs |r x v|/2 (km^2/s)", h/2, area/tau, h/2)
 
 	if closed {

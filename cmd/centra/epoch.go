@@ -46,6 +46,7 @@ func parseEpochFlag(c *cli.Context, name string) (epoch, error) {
 var (
 	leapMu      sync.Mutex
 	leapPending string
+	leapShown   bool // once per process: a mission runs many commands
 )
 
 // warnLeap notes, for the end of a successful run, that an epoch lies
@@ -56,7 +57,7 @@ func warnLeap(c *cli.Context, e epoch) {
 	}
 	leapMu.Lock()
 	defer leapMu.Unlock()
-	if leapPending == "" {
+	if leapPending == "" && !leapShown {
 		leapPending = fmt.Sprintf("centra: warning: epoch %s is after %s, the date centra's leap-second table is known complete; UTC may be off by whole seconds if a leap second was announced since (IERS Bulletin C); give --leap-seconds FILE with a current IERS leap-seconds.list\n",
 			e.FormatUTC(), timescale.ValidUntil().Format("2006-01-02"))
 	}
@@ -68,7 +69,7 @@ func flushLeapWarning(w io.Writer) {
 	defer leapMu.Unlock()
 	if leapPending != "" {
 		io.WriteString(w, leapPending)
-		leapPending = ""
+		leapPending, leapShown = "", true
 	}
 }
 

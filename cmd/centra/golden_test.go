@@ -16,6 +16,7 @@ func TestGoldenTables(t *testing.T) {
 		{"orbit/vallado-2-5", "orbit --epoch 2027-01-01T00:00:00Z --position 6524.834,6862.875,6448.296 --velocity 4.901327,5.533756,-1.976341"},
 		{"orbit/hyperbola", "orbit --epoch 2027-01-01T00:00:00Z --semi-major-axis -20000 --eccentricity 1.5 --inclination 30 --true-anomaly 40"},
 		{"orbit/sun-synchronous-csv", "--format csv orbit --epoch 2027-01-01T00:00:00Z --altitude 700 --sun-synchronous"},
+		{"demo/demo", "demo"},
 		{"bodies/list", "bodies"},
 		{"bodies/earth", "bodies earth"},
 		{"bodies/mars-json", "--format json bodies mars"},
