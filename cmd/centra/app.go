@@ -24,7 +24,7 @@ func register(order int, make func() *cli.Command) {
 // globalFlags are accepted before and after the command name.
 func globalFlags() []cli.Flag {
 	return []cli.Flag{
-		&cli.StringFlag{Name: "format", Value: "table", Usage: "output `FORMAT`: table, csv or json (ephemeris also oem)"},
+		&cli.StringFlag{Name: "format", Value: "table", Usage: "output `FORMAT`: table, csv or json (ephemeris also oem, sweep also jsonl)"},
 		&cli.StringFlag{Name: "bodies", Usage: "add or override central bodies from a TOML `FILE` (see README, 'Bodies file')"},
 		&cli.BoolFlag{Name: "quiet", Usage: "print no warnings or progress on stderr"},
 		&cli.StringFlag{Name: "leap-seconds", Usage: "read leap seconds from an IERS leap-seconds.list `FILE` (for epochs after the built-in table)"},

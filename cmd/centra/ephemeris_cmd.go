@@ -6,6 +6,7 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"os"
 	"strconv"
 	"strings"
 	"time"
@@ -77,6 +78,9 @@ const (
 func ephemerisAction(c *cli.Context) error {
 	spec, err := parseOrbit(c)
 	if err != nil {
+		return err
+	}
+	if _, err := surfaceEvent(spec); err != nil {
 		return err
 	}
 	ms, err := parseModel(c, spec.Body, spec.Epoch)
@@ -178,7 +182,11 @@ func writeEphemeris(o *output, c *cli.Context, spec *orbitSpec, ms *modelSpec, s
 		return err
 	}
 	row := &ephemerisRow{}
+	bar := newProgressBar(o, "ephemeris", math.Abs(span), true)
+	bar.stride = 64
+	defer bar.Clear()
 	onState := func(t float64, s orbit.State) error {
+		bar.Update(math.Abs(t))
 		ep := spec.Epoch.Add(t)
 		row.t, row.r, row.v = t, s.R, s.V
 		row.utc = ep.FormatUTC()
@@ -191,10 +199,18 @@ func writeEphemeris(o *output, c *cli.Context, spec *orbitSpec, ms *modelSpec, s
 		}
 		return rw.row(row)
 	}
-	_, err = p.Run(spec.State, span, &propagate.Output{Step: step, OnState: onState})
+	surface, err := surfaceEvent(spec)
+	if err != nil {
+		return err
+	}
+	res, err := p.Run(spec.State, span, &propagate.Output{Step: step, OnState: onState, Events: []propagate.Event{surface}})
 	if err != nil {
 		bw.Flush()
 		return propagationError(err)
+	}
+	if res.Terminated {
+		bw.Flush()
+		return impactError(spec, res)
 	}
 	var checks []orbit.Check
 	if c.Bool("checks") {
@@ -227,17 +243,57 @@ func writeEphemeris(o *output, c *cli.Context, spec *orbitSpec, ms *modelSpec, s
 	return nil
 }
 
+// surfaceSlack keeps an orbit grazing the surface (--altitude 0 on the
+// equator) from stopping on rounding noise, km.
+const surfaceSlack = 1e-6
+
+// surfaceEvent stops a propagation where the trajectory enters the
+// body's reference ellipsoid (equatorial radius a, polar radius a(1-f))
+// taken about the inertial z axis; the tilt of the true pole from it
+// moves the surface by at most a few hundred metres before 2200. An
+// initial state inside the body is an input error.
+func surfaceEvent(spec *orbitSpec) (propagate.Event, error) {
+	a := spec.Body.EquatorialRadius
+	k := 1 / (1 - spec.Body.Flattening)
+	g := func(_ float64, s orbit.State) float64 {
+		return math.Sqrt(s.R[0]*s.R[0]+s.R[1]*s.R[1]+k*k*s.R[2]*s.R[2]) - a + surfaceSlack
+	}
+	if h := g(0, spec.State); h < 0 {
+		r := math.Sqrt(spec.State.R[0]*spec.State.R[0] + spec.State.R[1]*spec.State.R[1] + spec.State.R[2]*spec.State.R[2])
+		return propagate.Event{}, inputErrorf("give a state above the surface (altitudes are above the equatorial radius)",
+			"the initial state is inside %s (radius %.3f km, %.3f km below its surface)", spec.Body.Name, r, -h)
+	}
+	return propagate.Event{Name: "surface", Kind: propagate.Custom, G: g, Direction: -1, Terminal: true}, nil
+}
+
+// impactError reports a run that a surfaceEvent stopped.
+func impactError(spec *orbitSpec, res propagate.Result) error {
+	r := math.Sqrt(res.State.R[0]*res.State.R[0] + res.State.R[1]*res.State.R[1] + res.State.R[2]*res.State.R[2])
+	return inputErrorf("shorten --span to end before the impact, raise the periapsis, or use 'centra ballistic' for a suborbital arc",
+		"the trajectory reaches the surface of %s at %s (t = %.3f s, radius %.3f km), where the propagation stops", spec.Body.Name, formatEpoch(spec.Epoch.Add(res.T)), res.T, r)
+}
+
 // propagationError explains a propagation that stopped early.
 func propagationError(err error) error {
 	var se *propagate.StepError
 	if errors.As(err, &se) {
+		if se.State == (orbit.State{}) {
+			// integrators of other variables (mean elements) give no state
+			return inputErrorf("check the orbit (does it hit the body?) or loosen --tolerance",
+				"propagation stopped at t = %.3f s: %v", se.T, se.Err)
+		}
 		r := math.Sqrt(se.State.R[0]*se.State.R[0] + se.State.R[1]*se.State.R[1] + se.State.R[2]*se.State.R[2])
 		return inputErrorf("check the orbit (does it hit the body?) or loosen --tolerance",
-			"propagation stopped at t = %.3f s (radius %.3f km): %v", se.T, r, se.Err)
+			"propagation stopped at t = %.3f s (radius %.6g km): %v", se.T, r, se.Err)
 	}
 	var ie *inputError
 	if errors.As(err, &ie) {
 		return err
+	}
+	var pe *os.PathError
+	if errors.As(err, &pe) {
+		// writing the rows failed (a full disk), not the propagation
+		return inputErrorf("check the disk and the --out path", "writing the output failed: %v", pe.Err)
 	}
 	return inputErrorf("check the orbit and the model", "propagation failed: %v", err)
 }

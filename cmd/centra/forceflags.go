@@ -89,6 +89,28 @@ func parsePerturbations(c *cli.Context, b *bodies.Body, ep epoch, ms *modelSpec)
 		}
 		fs.AreaM2 = area
 	}
+	// The other properties are checked here when no force of this run
+	// uses them (the force checks them otherwise), so that a bad value is
+	// not ignored without a word.
+	dragOn := c.Bool("drag") || dragCommands[c.Command.Name] || c.Command.Name == "ballistic"
+	for _, p := range []struct {
+		name, unit string
+		kind       quantity.Kind
+		used       bool
+	}{{"cd", "", quantity.Scalar, dragOn}, {"ballistic-coefficient", "kg/m2", quantity.Scalar, dragOn}, {"cr", "", quantity.Scalar, c.Bool("srp")}, {"srp-area", "m2", quantity.Area, c.Bool("srp")}} {
+		if p.used {
+			continue
+		}
+		v, ok, err := quantityFlag(c, p.name, p.kind)
+		if err != nil {
+			return err
+		}
+		if ok {
+			if err := requirePositive(p.name, v, p.unit); err != nil {
+				return err
+			}
+		}
+	}
 	scale, err := parseDensityScale(c)
 	if err != nil {
 		return err

@@ -231,3 +231,32 @@ func FuzzParseRepeat(f *testing.F) {
 		}
 	})
 }
+
+// FuzzOPMEpoch: an OPM's EPOCH and TIME_SYSTEM either give an instant in
+// the supported span, which prints as a UTC time that reads back, or an
+// error; nothing panics (an 8-character EPOCH such as "2027-001" used to
+// index past its end: testdata/fuzz/FuzzOPMEpoch).
+func FuzzOPMEpoch(f *testing.F) {
+	for _, s := range []string{"1998-12-18T14:28:15.1172", "2027-032T12:00:00", "2027-001", "2027-0010", "1972-01-01T00:00:05", "2199-12-31T23:59:59.999", "9999-12-31T00:00:00", "2016-12-31T23:59:60"} {
+		for _, ts := range []string{"UTC", "TAI", "TT", "GPS", "TDB"} {
+			f.Add(s, ts)
+		}
+	}
+	f.Fuzz(func(t *testing.T, s, system string) {
+		e, err := opmEpoch(s, system)
+		if err != nil {
+			return
+		}
+		if e.Sub(latestEpoch) >= 0 {
+			t.Fatalf("opmEpoch(%q, %q) = %s, beyond the supported range", s, system, e.FormatUTC())
+		}
+		out := e.FormatUTC()
+		back, err := parseEpoch("epoch", out)
+		if err != nil {
+			t.Fatalf("opmEpoch(%q, %q) prints as %q, which does not read back: %v", s, system, out, err)
+		}
+		if d := back.Sub(e); d > 0.0005+1e-9 || d < -0.0005-1e-9 {
+			t.Fatalf("opmEpoch(%q, %q) = %q moves %g s on reading back", s, system, out, d)
+		}
+	})
+}

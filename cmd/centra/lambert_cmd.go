@@ -286,9 +286,9 @@ func solveLambert(s *lambertSpec) (*lambertResult, error) {
 func lambertError(s *lambertSpec, err error) error {
 	var re *lambert.RevsError
 	if errors.As(err, &re) {
-		min := math.Ceil(re.MinTOF*1000) / 1000
-		return inputErrorf(fmt.Sprintf("give --tof %.3f (seconds) or more, or fewer --revs", min),
-			"no transfer with %d complete revolution(s) in %s: the minimum time of flight for this geometry is %s", re.Revs, lambertDuration(re.TOF), lambertDuration(min))
+		floor := math.Ceil(re.MinTOF*1000) / 1000
+		return inputErrorf(fmt.Sprintf("give --tof %.3f (seconds) or more, or fewer --revs", floor),
+			"no transfer with %d complete revolution(s) in %s: the minimum time of flight for this geometry is %s", re.Revs, lambertDuration(re.TOF), lambertDuration(floor))
 	}
 	if errors.Is(err, lambert.ErrNoConvergence) {
 		return inputErrorf("check that --r1, --r2 and --tof are in the units meant (km and s unless a unit is given)",

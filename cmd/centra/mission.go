@@ -219,6 +219,9 @@ func loadMission(file string, data []byte) (*missionRun, error) {
 				return nil, missionError(file, keyLine(data, "output", i, k), "output."+k, "unknown key", "output keys are expect, flags, force, format, kind, out, site, spacecraft, title")
 			}
 		}
+		if err := checkOutputTypes(file, data, i, out); err != nil {
+			return nil, err
+		}
 		kind, ok := out["kind"].(string)
 		if !ok {
 			return nil, missionError(file, keyLine(data, "output", i, ""), "output.kind", fmt.Sprintf("output %d has no kind", i+1), "add kind = one of "+sortedKinds())
@@ -228,6 +231,43 @@ func loadMission(file string, data []byte) (*missionRun, error) {
 		}
 	}
 	return mr, nil
+}
+
+// checkOutputTypes rejects an [[output]] value of the wrong type, which
+// args would otherwise ignore without a word.
+func checkOutputTypes(file string, data []byte, i int, out map[string]any) error {
+	for _, k := range []string{"kind", "title", "spacecraft", "format", "out", "force", "site"} {
+		v, ok := out[k]
+		if !ok {
+			continue
+		}
+		want, good := "a string", false
+		switch x := v.(type) {
+		case string:
+			good = k != "force"
+		case bool:
+			good = k == "force"
+		case []any:
+			if k == "site" {
+				good = true
+				for _, e := range x {
+					if _, isStr := e.(string); !isStr {
+						good = false
+					}
+				}
+			}
+		}
+		switch k {
+		case "force":
+			want = "true or false"
+		case "site":
+			want = "a site id or a list of site ids"
+		}
+		if !good {
+			return missionError(file, keyLine(data, "output", i, k), "output."+k, fmt.Sprintf("wrong type %T", v), "give "+k+" as "+want)
+		}
+	}
+	return nil
 }
 
 func sortedKeys(m map[string]string) string {

@@ -96,12 +96,24 @@ func stateFromOPM(c *cli.Context, spec *orbitSpec) error {
 func opmEpoch(s, system string) (epoch, error) {
 	s = strings.TrimSpace(s)
 	layout := "2006-01-02T15:04:05.999999999"
-	if len(s) >= 8 && s[4] == '-' && (len(s) < 8 || s[8] == 'T') && !strings.Contains(s[5:], "-") {
+	// (len(s) > 8: an 8-character EPOCH such as "2027-001" used to index
+	// past its end.)
+	if len(s) > 8 && s[4] == '-' && s[8] == 'T' && !strings.Contains(s[5:], "-") {
 		layout = "2006-002T15:04:05.999999999"
 	}
 	t, err := time.Parse(layout, strings.TrimSuffix(s, "Z"))
 	if err != nil {
 		return epoch{}, fmt.Errorf("EPOCH %q is not a CCSDS time", s)
+	}
+	// The same span as --epoch, on the reading itself (the scales differ
+	// by about a minute): before 1972 there is no UTC with leap seconds,
+	// and beyond 2200 neither the Earth-orientation series nor
+	// time.Duration (292 years from 2000) holds.
+	if t.Year() < 1972 {
+		return epoch{}, fmt.Errorf("EPOCH %s is before 1972", s)
+	}
+	if !t.Before(time.Date(2200, 1, 1, 0, 0, 0, 0, time.UTC)) {
+		return epoch{}, fmt.Errorf("EPOCH %s is beyond the supported range (before 2200)", s)
 	}
 	switch strings.ToUpper(system) {
 	case "UTC":
@@ -120,7 +132,11 @@ func opmEpoch(s, system string) (epoch, error) {
 		case "GPS":
 			sec += 19 // TAI - GPS = 19 s exactly (GPS time was UTC at 1980-01-06, when TAI-UTC was 19 s)
 		}
-		return timescale.FromTAISeconds(sec), nil
+		e := timescale.FromTAISeconds(sec)
+		if first, err := timescale.FromUTC(time.Date(1972, 1, 1, 0, 0, 0, 0, time.UTC)); err == nil && e.Sub(first) < 0 {
+			return epoch{}, fmt.Errorf("EPOCH %s %s is before 1972 in UTC", s, strings.ToUpper(system))
+		}
+		return e, nil
 	}
 	return epoch{}, fmt.Errorf("TIME_SYSTEM %s is not supported (UTC, TAI, TT, GPS)", system)
 }

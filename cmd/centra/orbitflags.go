@@ -176,7 +176,7 @@ func parseOrbit(c *cli.Context) (*orbitSpec, error) {
 			return nil, inputErrorf("raise the periapsis", "--periapsis-alt %g km is below the centre of %s", hp, body.Name)
 		}
 		if ra < rp {
-			return nil, inputErrorf("swap the two values or check them", "--apoapsis-alt %g km is below --periapsis-alt %g km", ha, hp)
+			return nil, inputErrorf("swap the two values; an open orbit (hyperbola) has no apoapsis: give it by --periapsis-alt H --eccentricity E with E > 1", "--apoapsis-alt %g km is below --periapsis-alt %g km", ha, hp)
 		}
 		a = (rp + ra) / 2
 		e = (ra - rp) / (ra + rp)
@@ -325,4 +325,13 @@ func (s *orbitSpec) check(re float64) {
 	if rp < re {
 		s.Warnings = append(s.Warnings, fmt.Sprintf("this trajectory intersects the surface: periapsis altitude %.3f km is below the equatorial radius of %s", rp-re, s.Body.Name))
 	}
+	// Near e = 1, a = p/(1-e^2) and the energy cancel digits (see
+	// orbit.CheckTolerance): say so where a check may then fail.
+	if d := math.Abs(1 - s.Elements.E); d > 0 && d < nearParabolicWarn {
+		s.Warnings = append(s.Warnings, fmt.Sprintf("the orbit is nearly parabolic (|1-e| = %.2g): the semi-major axis, period and energy lose about %.0f of 16 digits, so a Kepler-law check may miss its %g tolerance; the state, periapsis and semi-latus rectum keep full precision", d, math.Round(-math.Log10(d)), orbit.CheckTolerance))
+	}
 }
+
+// nearParabolicWarn is the |1-e| below which orbit.CheckTolerance's
+// comment says the checks may fail.
+const nearParabolicWarn = 1e-5

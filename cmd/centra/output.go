@@ -90,6 +90,20 @@ func (o *output) openFile(path string, force bool) error {
 		if fi.IsDir() {
 			return inputErrorf("give a file name, not a directory", "--out %q is a directory", path)
 		}
+		if !fi.Mode().IsRegular() {
+			// The rename that commits the file would replace the device
+			// or pipe itself (as root, /dev/null).
+			kind := "a special file"
+			switch m := fi.Mode(); {
+			case m&os.ModeDevice != 0:
+				kind = "a device"
+			case m&os.ModeNamedPipe != 0:
+				kind = "a named pipe"
+			case m&os.ModeSocket != 0:
+				kind = "a socket"
+			}
+			return inputErrorf("give the name of a regular file, or leave out --out and redirect stdout", "--out %q is %s, not a regular file", path, kind)
+		}
 		if !force {
 			return inputErrorf("add --force to replace it or choose another name", "--out %q already exists", path)
 		}

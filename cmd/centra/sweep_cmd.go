@@ -37,8 +37,9 @@ func sweepCommand() *cli.Command {
 examples:
   centra --format csv sweep --vary inclination=40:60:5 --vary altitude=400:800:100 --outputs period_s,raan_rate_deg_day orbit --eccentricity 0
   centra --format csv sweep --vary altitude=400km:800km:100km --vary model=point,j2 --outputs final_x_km,final_y_km,final_z_km ephemeris --final --inclination 51.6 --span 1d
-  centra --format jsonl sweep --draw altitude=uniform(400km,600km) --draw raan=uniform(0,360) --cases 10000 --seed 7 --outputs final_radius_km ephemeris --final --inclination 53 --span 1d
-  centra --format csv sweep --shard 3/8 --draw inclination=normal(97.4,0.05) --cases 800 --outputs raan_rate_deg_day orbit --altitude 550`,
+  centra --format jsonl sweep --draw 'altitude=uniform(400km,600km)' --draw 'raan=uniform(0,360)' --cases 200 --seed 7 --outputs final_radius_km ephemeris --final --inclination 53 --span 1d
+  centra --format csv sweep --shard 3/8 --draw 'inclination=normal(97.4,0.05)' --cases 800 --outputs raan_rate_deg_day orbit --altitude 550
+  centra --format csv sweep --draw 'burnout-speed=normal(2km/s,0.01km/s)' --cases 100 --outputs apogee_alt_km,impact_lat_deg,impact_lon_deg ballistic --site 57.35,-7.33 --burnout-alt 35 --flight-path-angle 84 --azimuth 290`,
 		Description: `Runs COMMAND once per case, on all cores, and prints one row per case in case
 order: the case index, the varied values and the chosen --outputs keys of the
 command's JSON record (scalars; a vector key gives three _x/_y/_z columns; a
@@ -139,8 +140,12 @@ type outputOf struct {
 func studyError(flag string, err error) error {
 	var se *study.Error
 	if errors.As(err, &se) {
-		msg := strings.TrimPrefix(strings.TrimPrefix(se.Err.Error(), "study: "), "")
-		if se.Input == "" {
+		msg := strings.TrimPrefix(se.Err.Error(), "study: ")
+		if se.Input == "" || flag == "" {
+			// a plan error: the detail alone reads better than the class
+			if _, detail, ok := strings.Cut(msg, ": "); ok {
+				msg = detail
+			}
 			return inputErrorf(se.Hint, "%s", msg)
 		}
 		return inputErrorf(se.Hint, "--%s %q: %s", flag, se.Input, msg)
@@ -238,7 +243,7 @@ func parseSweep(c *cli.Context) (*sweepSpec, error) {
 	}
 	sp.plan, err = study.NewPlan(vary, draw, cases, seed)
 	if err != nil {
-		return nil, studyError("vary", err)
+		return nil, studyError("", err)
 	}
 	if c.IsSet("shard") {
 		if sp.shard, err = study.ParseShard(c.String("shard")); err != nil {
@@ -694,6 +699,9 @@ func (sp *sweepSpec) stream(o *output) error {
 
 	pending := map[int]caseRow{}
 	next, failed, expectFailed := sp.lo, 0, 0
+	bar := newProgressBar(o, "sweep", float64(sp.hi-sp.lo), true)
+	bar.Detail = func() string { return fmt.Sprintf("%d of %d cases", next-sp.lo, sp.hi-sp.lo) }
+	defer bar.Clear()
 	var werr error
 	for r := range results {
 		pending[r.index] = r
@@ -704,6 +712,7 @@ func (sp *sweepSpec) stream(o *output) error {
 			}
 			delete(pending, next)
 			next++
+			bar.Update(float64(next - sp.lo))
 			<-window
 			if row.err != "" {
 				if row.failed {
@@ -975,9 +984,16 @@ func ephemerisFinal(o *output, spec *orbitSpec, ms *modelSpec, span float64, fra
 	if err != nil {
 		return inputErrorf("check --model and --tolerance", "%v", err)
 	}
-	res, err := p.Run(spec.State, span, nil)
+	surface, err := surfaceEvent(spec)
+	if err != nil {
+		return err
+	}
+	res, err := p.Run(spec.State, span, &propagate.Output{Events: []propagate.Event{surface}})
 	if err != nil {
 		return propagationError(err)
+	}
+	if res.Terminated {
+		return impactError(spec, res)
 	}
 	end := spec.Epoch.Add(res.T)
 	r, v := res.State.R, res.State.V

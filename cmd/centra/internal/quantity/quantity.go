@@ -215,6 +215,10 @@ func parseDuration(in, s string) (float64, error) {
 		terms++
 		s = strings.TrimSpace(rest[j:])
 	}
+	if terms == 0 {
+		// a sign alone ("-", "+") is no duration
+		return 0, &Error{Kind: Duration, Input: in, Err: ErrSyntax, Hint: unitHint(Duration)}
+	}
 	total *= sign
 	if math.IsNaN(total) || math.IsInf(total, 0) {
 		return 0, &Error{Kind: Duration, Input: in, Err: ErrFinite}
