@@ -41,6 +41,9 @@ def main():
         if os.path.exists(p):
             parts.append(demote(open(p).read(), 3))
     readme = tmpl.replace("<!-- FRAGMENTS -->\n", "\n".join(parts))
+    rel = os.path.join(HERE, "reliability.md")
+    if os.path.exists(rel):
+        readme = readme.rstrip() + "\n\n" + demote(open(rel).read(), 2)
     bench = os.path.join(HERE, "benchmarks.md")
     if os.path.exists(bench):
         readme = readme.rstrip() + "\n\n" + demote(open(bench).read(), 2)
