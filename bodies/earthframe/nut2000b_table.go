@@ -12,7 +12,7 @@ type nutTerm struct {
 
 // nut2000B is the IAU 2000B series, 77 luni-solar terms (McCarthy &
 // Luzum 2003, Celest. Mech. Dyn. Astr. 85, 37; IERS Conventions 2010,
-// section 5.5.1), transcribed from ERFA 2.0.0 nut00b.c, largest first.
+// section 5.5.1), copied from ERFA 2.0.0 nut00b.c, largest first.
 var nut2000B = [77]nutTerm{
 	{[5]int8{0, 0, 0, 0, 1}, -172064161, -174666, 33386, 92052331, 9086, 15377},
 	{[5]int8{0, 0, 2, -2, 2}, -13170906, -1675, -13696, 5730336, -3015, -4587},

@@ -438,33 +438,5 @@ func lambertEmit(o *output, title string, rec reports.Record, exps []expectation
 			check = append(check, reports.Num(base+"_"+axis+suffix, "", v[i], f.Digits))
 		}
 	}
-	rows, failed, err := checkExpectations(exps, check)
-	if err != nil {
-		return err
-	}
-	if o.Format == "json" && len(rows) > 0 {
-		rec = append(rec, reports.Field{Key: "expectations", Value: rows})
-	}
-	if err := o.emit(title, rec); err != nil {
-		return err
-	}
-	if err := extra(); err != nil {
-		return err
-	}
-	if len(rows) > 0 {
-		switch o.Format {
-		case "table":
-			fmt.Fprintln(o.W)
-			reports.WriteTitle(o.W, "Expectations")
-			if err := reports.WriteListTable(o.W, rows); err != nil {
-				return err
-			}
-		case "csv":
-			reports.WriteListTable(o.Stderr, rows)
-		}
-	}
-	if failed > 0 {
-		return &expectationError{Failed: failed, Total: len(rows)}
-	}
-	return nil
+	return o.emitCheckedWithExpectations(title, rec, check, exps, extra)
 }

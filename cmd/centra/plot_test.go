@@ -184,4 +184,3 @@ func TestPlotTableSummary(t *testing.T) {
 	}
 	golden(t, "plot/altitude_table", out)
 }
-

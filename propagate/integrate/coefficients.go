@@ -4,11 +4,11 @@ package integrate
 // continuous extension, as given in Hairer, Norsett & Wanner, Solving
 // Ordinary Differential Equations I, 2nd ed. (Springer 1993), Section II.5
 // and II.6 (method DOP853), and in the published Fortran code dop853.f of
-// Hairer & Wanner. The decimal strings below were transcribed
+// Hairer & Wanner. The decimal strings below were copied
 // programmatically, digit for digit, from SciPy 1.10.1
 // scipy/integrate/_ivp/dop853_coefficients.py, which reproduces the
 // dop853.f constants. TestCoefficientOrderConditions verifies them against
-// the Runge-Kutta order conditions, independently of any transcription.
+// the Runge-Kutta order conditions, independently of how they were copied.
 //
 // Stage indices are 0-based: stages 0..11 are the 12 stages of the step,
 // stage 12 is f(t+h, y1) (first stage of the next step, FSAL), stages

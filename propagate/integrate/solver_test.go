@@ -6,7 +6,7 @@ import (
 	"testing"
 )
 
-// TestCoefficientOrderConditions checks the transcribed coefficients
+// TestCoefficientOrderConditions checks the copied coefficients
 // against the Runge-Kutta order conditions (Hairer, Norsett & Wanner,
 // Solving ODEs I, 2nd ed., Section II.2, Table 2.2 and Theorem 2.13): they
 // hold exactly in rational arithmetic, so the residual is rounding only.

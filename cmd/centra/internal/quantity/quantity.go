@@ -111,8 +111,9 @@ func unitHint(k Kind) string {
 	return "units: " + strings.Join(names, ", ") + "; a bare number is " + DefaultUnit(k)
 }
 
-// splitNumber splits s into the longest leading number and the rest.
-func splitNumber(s string) (num, rest string) {
+// SplitNumber splits s into the longest leading decimal number and the
+// rest (its unit); num is "" when s does not start with a number.
+func SplitNumber(s string) (num, rest string) {
 	i := 0
 	if i < len(s) && (s[i] == '+' || s[i] == '-') {
 		i++
@@ -158,7 +159,7 @@ func Parse(k Kind, s string) (float64, error) {
 	if k == Duration {
 		return parseDuration(in, s)
 	}
-	num, rest := splitNumber(s)
+	num, rest := SplitNumber(s)
 	if num == "" {
 		return 0, &Error{Kind: k, Input: in, Err: ErrSyntax, Hint: unitHint(k)}
 	}
@@ -191,7 +192,7 @@ func parseDuration(in, s string) (float64, error) {
 	total := 0.0
 	terms := 0
 	for len(s) > 0 {
-		num, rest := splitNumber(s)
+		num, rest := SplitNumber(s)
 		if num == "" || num[0] == '+' || num[0] == '-' {
 			return 0, &Error{Kind: Duration, Input: in, Err: ErrSyntax, Hint: unitHint(Duration)}
 		}
@@ -296,8 +297,8 @@ func ParseTolerance(k Kind, s string) (Tolerance, error) {
 		return Tolerance{Value: v, Tol: p / 100, Relative: true}, nil
 	}
 	// A bare tolerance borrows the value's unit.
-	if _, rest := splitNumber(ts); strings.TrimSpace(rest) == "" {
-		if _, vu := splitNumber(vs); strings.TrimSpace(vu) != "" && k != Duration {
+	if _, rest := SplitNumber(ts); strings.TrimSpace(rest) == "" {
+		if _, vu := SplitNumber(vs); strings.TrimSpace(vu) != "" && k != Duration {
 			ts += strings.TrimSpace(vu)
 		} else if k == Duration && strings.TrimSpace(vu) != "" {
 			if _, last := splitLastUnit(vs); last != "" {

@@ -8,6 +8,8 @@ import (
 	"math/rand/v2"
 	"strconv"
 	"strings"
+
+	"centra/cmd/centra/internal/quantity"
 )
 
 // MaxCases bounds the number of cases of one plan (and of one grid
@@ -99,43 +101,9 @@ type number struct {
 	unit string
 }
 
-// splitNumber splits s into the longest leading decimal number and the
-// rest (the unit).
-func splitNumber(s string) (num, rest string) {
-	i := 0
-	if i < len(s) && (s[i] == '+' || s[i] == '-') {
-		i++
-	}
-	digits := false
-	for i < len(s) && s[i] >= '0' && s[i] <= '9' {
-		i++
-		digits = true
-	}
-	if i < len(s) && s[i] == '.' {
-		i++
-		for i < len(s) && s[i] >= '0' && s[i] <= '9' {
-			i++
-			digits = true
-		}
-	}
-	if digits && i < len(s) && (s[i] == 'e' || s[i] == 'E') {
-		j := i + 1
-		if j < len(s) && (s[j] == '+' || s[j] == '-') {
-			j++
-		}
-		k := j
-		for k < len(s) && s[k] >= '0' && s[k] <= '9' {
-			k++
-		}
-		if k > j {
-			i = k
-		}
-	}
-	if !digits {
-		return "", s
-	}
-	return s[:i], s[i:]
-}
+// splitNumber is the quantity parser's number splitter, so sweep values
+// read exactly as flags do.
+func splitNumber(s string) (num, rest string) { return quantity.SplitNumber(s) }
 
 // parseNumber reads "12.5km/s" as 12.5 and "km/s". ok is false when s
 // does not start with a number or the unit is not a unit word.
