@@ -70,7 +70,14 @@ func New(m Model, opt Options) (*Propagator, error) {
 	n := 6
 	switch opt.Equations {
 	case FastPath:
-		f = p.fast
+		switch {
+		case m.Perturbation != nil || deg > 2:
+			f = p.fast
+		case deg == 2:
+			f = p.fastJ2
+		default:
+			f = p.fastPoint
+		}
 	case Engine:
 		l, err := lagrange.ZonalCartesian(m.Mu, m.Re, m.J, deg)
 		if err != nil {
@@ -153,6 +160,37 @@ func (p *Propagator) fast(dst []float64, t float64, y []float64) error {
 	}
 	dst[0], dst[1], dst[2] = y[3], y[4], y[5]
 	dst[3], dst[4], dst[5] = a[0], a[1], a[2]
+	return nil
+}
+
+// fastPoint is fast for a point mass without perturbation, written out so
+// that the whole right-hand side is one call with no bounds checks after
+// the first (the commonest model and the one compared with other tools).
+func (p *Propagator) fastPoint(dst []float64, _ float64, y []float64) error {
+	y, dst = y[:6], dst[:6]
+	x, yy, z := y[0], y[1], y[2]
+	r2 := x*x + yy*yy + z*z
+	k := -p.field.Mu / (r2 * math.Sqrt(r2))
+	dst[0], dst[1], dst[2] = y[3], y[4], y[5]
+	dst[3], dst[4], dst[5] = k*x, k*yy, k*z
+	return nil
+}
+
+// fastJ2 is fast for the field to degree 2 without perturbation; the
+// arithmetic is that of gravity.Zonal.Acceleration (TestFastPathsAgree).
+func (p *Propagator) fastJ2(dst []float64, _ float64, y []float64) error {
+	y, dst = y[:6], dst[:6]
+	x, yy, z := y[0], y[1], y[2]
+	r2 := x*x + yy*yy + z*z
+	rn := math.Sqrt(r2)
+	inv2 := 1 / r2
+	k := -p.field.Mu * inv2 / rn
+	s2 := z * z * inv2
+	q := p.field.J[2] * p.field.Re * p.field.Re * inv2
+	kr := k * (1 - 1.5*q*(5*s2-1))
+	kz := k * (1 - 1.5*q*(5*s2-3))
+	dst[0], dst[1], dst[2] = y[3], y[4], y[5]
+	dst[3], dst[4], dst[5] = kr*x, kr*yy, kz*z
 	return nil
 }
 

@@ -70,24 +70,18 @@ var d = [4][16]float64{
 	3: {0: -0.25693933462703749003312586129e+2, 5: -0.15418974869023643374053993627e+3, 6: -0.23152937917604549567536039109e+3, 7: 0.35763911791061412378285349910e+3, 8: 0.93405324183624310003907691704e+2, 9: -0.37458323136451633156875139351e+2, 10: 0.10409964950896230045147246184e+3, 11: 0.29840293426660503123344363579e+2, 12: -0.43533456590011143754432175058e+2, 13: 0.96324553959188282948394950600e+2, 14: -0.39177261675615439165231486172e+2, 15: -0.14972683625798562581422125276e+3},
 }
 
-// aNonZero lists, for each stage, the indices of its non-zero coefficients
-// a[stage][j]; bNonZero those of the weights b = a[12] and of e5 (the same
-// set: stages 1..4 carry no weight).
-var (
-	aNonZero [16][]int
-	bNonZero = [...]int{0, 5, 6, 7, 8, 9, 10, 11}
-)
+// bNonZero lists the stages that carry a weight in b = a[12] and in e5
+// (the same set: stages 1..4 carry none); solution in stages.go is unrolled
+// over exactly these, which init checks against the tables.
+var bNonZero = [...]int{0, 5, 6, 7, 8, 9, 10, 11}
 
 func init() {
-	for st := range a {
-		for j := 0; j < st; j++ {
-			if a[st][j] != 0 {
-				aNonZero[st] = append(aNonZero[st], j)
-			}
-		}
+	var weighted [12]bool
+	for _, j := range bNonZero {
+		weighted[j] = true
 	}
-	for j := 0; j < 12; j++ {
-		if (a[12][j] != 0 || e5[j] != 0) != (j == 0 || j >= 5) {
+	for j := range weighted {
+		if (a[12][j] != 0 || e5[j] != 0) != weighted[j] {
 			panic("integrate: b or e5 non-zero outside bNonZero")
 		}
 	}

@@ -360,7 +360,6 @@ func (s *Solver) Step() error {
 			last = true
 		}
 		// stages 1..11
-		kf := s.kf
 		y, ys := s.y[:n], s.ys[:n]
 		for st := 1; st < 12; st++ {
 			stage(st, ys, y, h, k)
@@ -368,23 +367,7 @@ func (s *Solver) Step() error {
 				return err
 			}
 		}
-		// new solution and error estimate; b and e5 vanish on stages 1..4
-		var err5, err3 float64
-		b := &a[12]
-		yn := s.yn[:n]
-		for i := range yn {
-			var inc, e5s float64
-			for _, j := range bNonZero {
-				kj := kf[j*n+i]
-				inc += b[j] * kj
-				e5s += e5[j] * kj
-			}
-			yn[i] = y[i] + h*inc
-			e3s := inc - bhh1*kf[i] - bhh2*kf[8*n+i] - bhh3*kf[11*n+i]
-			sk := atol[i] + rtol[i]*math.Max(math.Abs(y[i]), math.Abs(yn[i]))
-			err5 += (e5s / sk) * (e5s / sk)
-			err3 += (e3s / sk) * (e3s / sk)
-		}
+		err5, err3 := solution(s.yn[:n], y, h, k, atol, rtol)
 		deno := err5 + 0.01*err3
 		if deno <= 0 {
 			deno = 1
