@@ -2,6 +2,7 @@ package main
 
 import (
 	"io"
+	"slices"
 	"sort"
 	"strings"
 
@@ -39,7 +40,59 @@ units (400km, 7.5km/s, 98.2deg, 1d6h); times are RFC 3339 UTC.
 Exit codes: 0 success, 1 an --expect failed, 2 bad input or usage.
 Results are planning estimates; see 'centra demo' and the README cautions.`
 
-func newApp(stdout, stderr io.Writer) *cli.App {
+// newApp returns the application with every command fully built: for
+// listings of commands and flags (mission keys, sweep, completion, tests).
+func newApp(stdout, stderr io.Writer) *cli.App { return buildApp(stdout, stderr, nil, "") }
+
+// newAppFor returns the application that runs the command line args. Only
+// the command named in args gets its flags: urfave/cli v2.27.7 renders
+// every flag of every command into help text on each run (Setup's flag
+// categories) and rescans all of a command's flags with a regular
+// expression for every flag it checks (Context.IsSet, runFlagActions), which
+// cost a command-line run more than a day of propagation. The other
+// commands keep their names and usage for 'centra --help'; should
+// urfave/cli ever dispatch to one of them, it runs the command line on the
+// fully built application instead, so the result never depends on the
+// shortcut.
+func newAppFor(stdout, stderr io.Writer, args []string) *cli.App {
+	return buildApp(stdout, stderr, args, commandToken(args))
+}
+
+// commandToken returns the first argument after the program name and the
+// global flags (with their values), or "" when there is none or the line
+// cannot be read that way (then everything is built).
+func commandToken(args []string) string {
+	valued := map[string]bool{}
+	for _, f := range globalFlags() {
+		if _, ok := f.(*cli.StringFlag); ok {
+			for _, n := range f.Names() {
+				valued[n] = true
+			}
+		}
+	}
+	for i := 1; i < len(args); i++ {
+		a := args[i]
+		switch {
+		case a == "--" || a == "-" || a == "":
+			return ""
+		case strings.HasPrefix(a, "-"):
+			name := strings.TrimLeft(a, "-")
+			if strings.Contains(name, "=") {
+				continue
+			}
+			if valued[name] {
+				i++
+			}
+		default:
+			return a
+		}
+	}
+	return ""
+}
+
+// buildApp builds the application; when only names a command, the others
+// are left unprepared and run args on a full application if reached.
+func buildApp(stdout, stderr io.Writer, args []string, only string) *cli.App {
 	app := &cli.App{
 		Name:                      "centra",
 		Usage:                     "orbital and central-force trajectory planner",
@@ -62,17 +115,82 @@ func newApp(stdout, stderr io.Writer) *cli.App {
 	}
 	cmds := append([]registeredCommand(nil), registry...)
 	sort.SliceStable(cmds, func(i, j int) bool { return cmds[i].order < cmds[j].order })
+	named := false
+	if only != "" {
+		for _, rc := range cmds {
+			cmd := rc.make()
+			if cmd.Name == only || slices.Contains(cmd.Aliases, only) {
+				named = cmd.Name != "completion"
+			}
+		}
+	}
 	for _, rc := range cmds {
 		cmd := rc.make()
+		if named && cmd.Name != only && !slices.Contains(cmd.Aliases, only) {
+			app.Commands = append(app.Commands, unprepared(cmd, stdout, stderr, args))
+			continue
+		}
 		cmd.Flags = append(cmd.Flags, globalFlags()...)
 		cmd.Flags = append(cmd.Flags, outputFlags()...)
 		cmd.OnUsageError = usageError
 		if cmd.Action != nil {
 			cmd.Action = checkArgs(cmd, cmd.Action)
 		}
+		cmd.Flags = namedOnce(cmd.Flags)
 		app.Commands = append(app.Commands, cmd)
 	}
 	return app
+}
+
+// unprepared keeps what 'centra --help' shows of a command that the
+// command line does not run; see newAppFor.
+func unprepared(cmd *cli.Command, stdout, stderr io.Writer, args []string) *cli.Command {
+	return &cli.Command{
+		Name:            cmd.Name,
+		Aliases:         cmd.Aliases,
+		Usage:           cmd.Usage,
+		Category:        cmd.Category,
+		Hidden:          cmd.Hidden,
+		SkipFlagParsing: true,
+		Action: func(*cli.Context) error {
+			return newApp(stdout, stderr).Run(args)
+		},
+	}
+}
+
+// namedString and namedStringSlice compute their names once: urfave/cli's
+// Names runs a regular expression on every call and is called for every
+// flag of the command at every flag it checks. Everything else, help text
+// included, is the wrapped flag's own.
+type namedString struct {
+	*cli.StringFlag
+	names []string
+}
+
+func (f *namedString) Names() []string { return f.names }
+
+type namedStringSlice struct {
+	*cli.StringSliceFlag
+	names []string
+}
+
+func (f *namedStringSlice) Names() []string { return f.names }
+
+// namedOnce wraps the string flags of a command; boolean flags stay as they
+// are because urfave/cli's help code asserts their concrete type.
+func namedOnce(flags []cli.Flag) []cli.Flag {
+	out := make([]cli.Flag, len(flags))
+	for i, f := range flags {
+		switch f := f.(type) {
+		case *cli.StringFlag:
+			out[i] = &namedString{f, f.Names()}
+		case *cli.StringSliceFlag:
+			out[i] = &namedStringSlice{f, f.Names()}
+		default:
+			out[i] = f
+		}
+	}
+	return out
 }
 
 // usageError turns urfave/cli's flag errors into our one-line exit 2.
@@ -111,7 +229,7 @@ func checkArgs(cmd *cli.Command, action cli.ActionFunc) cli.ActionFunc {
 
 // run is main without os.Exit, so tests can call it.
 func run(args []string, stdout, stderr io.Writer) int {
-	app := newApp(stdout, stderr)
+	app := newAppFor(stdout, stderr, args)
 	err := app.Run(args)
 	return exitCode(err, stderr)
 }

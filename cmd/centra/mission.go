@@ -531,7 +531,7 @@ func (mr *missionRun) execute() error {
 	for i, s := range steps {
 		fmt.Fprintf(mr.stdout, "\n[%d/%d] %s\n", i+1, len(steps), s.title)
 		fmt.Fprintf(mr.stdout, "$ %s\n\n", shellQuote(s.argv))
-		app := newApp(mr.stdout, mr.stderr)
+		app := newAppFor(mr.stdout, mr.stderr, s.argv)
 		err := app.Run(s.argv)
 		var ee *expectationError
 		switch {
