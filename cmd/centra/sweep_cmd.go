@@ -929,7 +929,14 @@ func (s *sweepTable) begin() error {
 		}
 		fmt.Fprintf(&head, " %*s |", s.widths[k], c)
 	}
-	s.rule = "+" + strings.Repeat("-", head.Len()-2) + "+"
+	// the box holds the fixed-width columns; a case's error, of any
+	// length, trails its row outside the box
+	var rule strings.Builder
+	rule.WriteString("+")
+	for _, w := range s.widths {
+		rule.WriteString(strings.Repeat("-", w+2) + "+")
+	}
+	s.rule = rule.String()
 	_, err := fmt.Fprintf(s.w, "%s\n%s  error\n%s\n", s.rule, head.String(), s.rule)
 	return err
 }
