@@ -100,7 +100,7 @@ func buildApp(stdout, stderr io.Writer, args []string, only string) *cli.App {
 		Description:               appDescription,
 		Writer:                    stdout,
 		ErrWriter:                 stderr,
-		Flags:                     globalFlags(),
+		Flags:                     namedOnce(globalFlags()),
 		HideHelpCommand:           true,
 		EnableBashCompletion:      true,
 		DisableSliceFlagSeparator: true,
@@ -115,17 +115,15 @@ func buildApp(stdout, stderr io.Writer, args []string, only string) *cli.App {
 	}
 	cmds := append([]registeredCommand(nil), registry...)
 	sort.SliceStable(cmds, func(i, j int) bool { return cmds[i].order < cmds[j].order })
+	built := make([]*cli.Command, len(cmds))
 	named := false
-	if only != "" {
-		for _, rc := range cmds {
-			cmd := rc.make()
-			if cmd.Name == only || slices.Contains(cmd.Aliases, only) {
-				named = cmd.Name != "completion"
-			}
+	for i, rc := range cmds {
+		built[i] = rc.make()
+		if only != "" && (built[i].Name == only || slices.Contains(built[i].Aliases, only)) {
+			named = built[i].Name != "completion"
 		}
 	}
-	for _, rc := range cmds {
-		cmd := rc.make()
+	for _, cmd := range built {
 		if named && cmd.Name != only && !slices.Contains(cmd.Aliases, only) {
 			app.Commands = append(app.Commands, unprepared(cmd, stdout, stderr, args))
 			continue
@@ -176,21 +174,51 @@ type namedStringSlice struct {
 
 func (f *namedStringSlice) Names() []string { return f.names }
 
-// namedOnce wraps the string flags of a command; boolean flags stay as they
-// are because urfave/cli's help code asserts their concrete type.
+// namedBool wraps a boolean flag. urfave/cli asserts *cli.BoolFlag in two
+// places: its flag text (which it renders from the wrapped flag, so the
+// help is unchanged) and its completion list, where hidden boolean flags
+// are left out; no centra boolean flag is hidden (TestNoHiddenBoolFlags).
+type namedBool struct {
+	*cli.BoolFlag
+	names []string
+}
+
+func (f *namedBool) Names() []string { return f.names }
+
+// namedOnce wraps the flags of a command so that their names are computed
+// once.
 func namedOnce(flags []cli.Flag) []cli.Flag {
 	out := make([]cli.Flag, len(flags))
 	for i, f := range flags {
 		switch f := f.(type) {
 		case *cli.StringFlag:
-			out[i] = &namedString{f, f.Names()}
+			out[i] = &namedString{f, flagNames(f)}
 		case *cli.StringSliceFlag:
-			out[i] = &namedStringSlice{f, f.Names()}
+			out[i] = &namedStringSlice{f, flagNames(f)}
+		case *cli.BoolFlag:
+			out[i] = &namedBool{f, flagNames(f)}
 		default:
 			out[i] = f
 		}
 	}
 	return out
+}
+
+// flagNames returns a flag's name and aliases: what f.Names() returns for
+// centra's flags (whose names hold no comma or space, the only thing
+// urfave/cli's regular expression removes), without running it.
+func flagNames(f cli.Flag) []string {
+	switch f := f.(type) {
+	case *cli.StringFlag:
+		return append([]string{f.Name}, f.Aliases...)
+	case *cli.StringSliceFlag:
+		return append([]string{f.Name}, f.Aliases...)
+	case *cli.BoolFlag:
+		return append([]string{f.Name}, f.Aliases...)
+	case *cli.IntFlag:
+		return append([]string{f.Name}, f.Aliases...)
+	}
+	return f.Names()
 }
 
 // usageError turns urfave/cli's flag errors into our one-line exit 2.

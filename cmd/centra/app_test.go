@@ -2,8 +2,11 @@ package main
 
 import (
 	"bytes"
+	"slices"
 	"strings"
 	"testing"
+
+	"github.com/urfave/cli/v2"
 )
 
 func TestCommandToken(t *testing.T) {
@@ -65,5 +68,32 @@ func TestLazyAppSameAsFull(t *testing.T) {
 	code := exitCode(app.Run(argv), &errb)
 	if code != 0 || !strings.Contains(out.String(), `"period_s"`) {
 		t.Errorf("orbit through an unprepared command: exit %d, stdout %q, stderr %q", code, out.String(), errb.String())
+	}
+}
+
+// TestNoHiddenBoolFlags: namedBool hides the concrete *cli.BoolFlag from
+// urfave/cli's completion list, which would then offer a hidden boolean
+// flag; there must be none.
+func TestNoHiddenBoolFlags(t *testing.T) {
+	for _, rc := range registry {
+		cmd := rc.make()
+		for _, f := range append(cmd.Flags, globalFlags()...) {
+			if b, ok := f.(*cli.BoolFlag); ok && b.Hidden {
+				t.Errorf("centra %s --%s is a hidden boolean flag", cmd.Name, b.Name)
+			}
+		}
+	}
+}
+
+// TestFlagNamesAsUrfave: flagNames gives what urfave/cli's Names gives for
+// every flag of every command.
+func TestFlagNamesAsUrfave(t *testing.T) {
+	for _, rc := range registry {
+		cmd := rc.make()
+		for _, f := range append(append(cmd.Flags, globalFlags()...), outputFlags()...) {
+			if got, want := flagNames(f), f.Names(); !slices.Equal(got, want) {
+				t.Errorf("centra %s: flagNames %q, Names %q", cmd.Name, got, want)
+			}
+		}
 	}
 }

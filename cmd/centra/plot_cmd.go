@@ -562,13 +562,13 @@ func skyJob(c *cli.Context) (*plotJob, error) {
 func plotBallisticFlags(have []cli.Flag) []cli.Flag {
 	names := map[string]bool{"expect": true, "dispersions-out": true}
 	for _, f := range have {
-		for _, n := range f.Names() {
+		for _, n := range flagNames(f) {
 			names[n] = true
 		}
 	}
 	var out []cli.Flag
 	for _, f := range ballisticCommand().Flags {
-		if !names[f.Names()[0]] {
+		if !names[flagNames(f)[0]] {
 			out = append(out, f)
 		}
 	}

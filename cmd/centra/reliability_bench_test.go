@@ -48,3 +48,21 @@ func BenchmarkOrbitCommandInProcess(b *testing.B) {
 		}
 	}
 }
+
+// BenchmarkEphemerisFinalCommand is the command of the SciPy comparison
+// (testdata/bench/compare.py) in-process: a one-day point-mass propagation
+// (about a third of the time) plus flags, setup and the JSON record.
+func BenchmarkEphemerisFinalCommand(b *testing.B) {
+	argv := []string{"centra", "--format", "json", "--quiet", "ephemeris", "--final", "--model", "point",
+		"--position", "6878.137,0,0", "--velocity", "0,7.612,0.5", "--span", "86400", "--tolerance", "1e-10",
+		"--epoch", "2026-01-01T00:00:00Z"}
+	var out, errb bytes.Buffer
+	b.ReportAllocs()
+	for b.Loop() {
+		out.Reset()
+		errb.Reset()
+		if code := run(argv, &out, &errb); code != 0 {
+			b.Fatal(errb.String())
+		}
+	}
+}
