@@ -112,10 +112,17 @@ func sampleOrbit(spec *orbitSpec, ms *modelSpec, span, tolKm float64) (*trajecto
 	if err != nil {
 		return nil, inputErrorf("check the force model flags", "%v", err)
 	}
-	tr, err := trajectory.Sample(p, spec.State, span, trajectory.Options{PositionTol: tolKm})
+	surface, err := surfaceEvent(spec)
+	if err != nil {
+		return nil, err
+	}
+	tr, err := trajectory.Sample(p, spec.State, span, trajectory.Options{PositionTol: tolKm, Stop: &surface})
 	if err != nil {
 		var se *propagate.StepError
+		var stop *trajectory.StopError
 		switch {
+		case errors.As(err, &stop):
+			return nil, impactError(spec, propagate.Result{T: stop.T, State: stop.State, Terminated: true})
 		case errors.As(err, &se):
 			return nil, inputErrorf("check the orbit: it cannot be propagated over the span", "the propagation stopped %.3f s after the epoch: %v", se.T, se.Err)
 		case errors.Is(err, trajectory.ErrTrajectory):

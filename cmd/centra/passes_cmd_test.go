@@ -437,3 +437,22 @@ func FuzzParseSiteSpec(f *testing.F) {
 		}
 	})
 }
+
+// TestPassesEclipsesStopAtSurface: an orbit that decays into the Earth
+// during the span (150 km, drag on a 5 kg, 0.1 m^2 spacecraft: about an
+// hour and a half, as 'lifetime --method full' also finds) is an input
+// error naming the time of entry, not windows computed under the ground.
+func TestPassesEclipsesStopAtSurface(t *testing.T) {
+	decaying := "--epoch 2027-01-01T00:00:00Z --altitude 150 --inclination 51.6 --drag --mass 5 --area 0.1 --span 7d"
+	picture := filepath.Join(t.TempDir(), "track.svg")
+	for _, cmd := range []string{"passes --site 45,10 ", "eclipses ", "plot --kind ground-track --out " + picture + " ",
+		"plot --kind sky --site 45,10 --out " + picture + " ", "plot --kind altitude --out " + picture + " "} {
+		out, stderr, code := runBinary(t, strings.Fields(cmd+decaying)...)
+		if code != 2 || !strings.Contains(stderr, "the trajectory reaches the surface of earth at 2027-01-01T0") || out != "" {
+			t.Errorf("%s: exit %d, stdout %q, stderr %q; want exit 2 and the surface entry within hours", cmd, code, out, stderr)
+		}
+	}
+	if _, err := os.Stat(picture); !os.IsNotExist(err) {
+		t.Errorf("a picture was written for a trajectory into the ground (stat: %v)", err)
+	}
+}

@@ -256,15 +256,24 @@ func pictureSpan(c *cli.Context, defSpan, period float64, maxSamples float64) (s
 	return span, step, nil
 }
 
-// propagateTrack runs the model of the command over the span.
-func propagateTrack(ms *modelSpec, s0 orbit.State, span, step float64) (*track.Trajectory, error) {
+// propagateTrack runs the model of the command over the span, stopping
+// at the body's surface.
+func propagateTrack(spec *orbitSpec, ms *modelSpec, span, step float64) (*track.Trajectory, error) {
 	p, err := propagate.New(ms.Model, ms.Options)
 	if err != nil {
 		return nil, inputErrorf("check --model and --tolerance", "%v", err)
 	}
-	tr, err := track.Propagate(p, s0, span, step)
+	surface, err := surfaceEvent(spec)
 	if err != nil {
-		if errors.Is(err, track.ErrSamples) {
+		return nil, err
+	}
+	tr, err := track.PropagateUntil(p, spec.State, span, step, &surface)
+	if err != nil {
+		var stop *trajectory.StopError
+		switch {
+		case errors.As(err, &stop):
+			return nil, impactError(spec, propagate.Result{T: stop.T, State: stop.State, Terminated: true})
+		case errors.Is(err, track.ErrSamples):
 			return nil, inputErrorf("lengthen --step or shorten --span", "%v", err)
 		}
 		return nil, propagationError(err)
@@ -311,7 +320,7 @@ func planeJob(c *cli.Context, kind string) (*plotJob, error) {
 	head := plots.Header{Body: b.Name, Epoch: formatEpoch(spec.Epoch), Model: ms.Label, Span: span}
 	job := &plotJob{kind: kind, warnings: spec.Warnings}
 	job.run = func() (*plots.Figure, reports.Record, error) {
-		tr, err := propagateTrack(ms, spec.State, span, step)
+		tr, err := propagateTrack(spec, ms, span, step)
 		if err != nil {
 			return nil, nil, err
 		}
@@ -441,7 +450,7 @@ func groundJob(c *cli.Context) (*plotJob, error) {
 	head := plots.Header{Body: b.Name, Epoch: formatEpoch(spec.Epoch), Model: ms.Label, Span: span}
 	job := &plotJob{kind: "groundtrack", warnings: spec.Warnings}
 	job.run = func() (*plots.Figure, reports.Record, error) {
-		tr, err := propagateTrack(ms, spec.State, span, step)
+		tr, err := propagateTrack(spec, ms, span, step)
 		if err != nil {
 			return nil, nil, err
 		}
@@ -525,8 +534,16 @@ func skyJob(c *cli.Context) (*plotJob, error) {
 		if err != nil {
 			return nil, nil, inputErrorf("check --model and --tolerance", "%v", err)
 		}
-		passes, err := track.Sky(p, spec.State, spec.Epoch, dut1, span, step, b.EquatorialRadius, site)
+		surface, err := surfaceEvent(spec)
 		if err != nil {
+			return nil, nil, err
+		}
+		passes, err := track.SkyUntil(p, spec.State, spec.Epoch, dut1, span, step, b.EquatorialRadius, site, &surface)
+		if err != nil {
+			var stop *trajectory.StopError
+			if errors.As(err, &stop) {
+				return nil, nil, impactError(spec, propagate.Result{T: stop.T, State: stop.State, Terminated: true})
+			}
 			if errors.Is(err, trajectory.ErrTrajectory) {
 				return nil, nil, inputErrorf("shorten --span", "%v", err)
 			}

@@ -40,6 +40,12 @@ const (
 // the Sun of sunmoon.Sun and the Earth's shadow for a sphere of radius re
 // (km).
 func Sky(p *propagate.Propagator, s0 orbit.State, ep timescale.Epoch, dut1, span, step, re float64, site visibility.Site) ([]SkyPass, error) {
+	return SkyUntil(p, s0, ep, dut1, span, step, re, site, nil)
+}
+
+// SkyUntil is Sky with a stop event, as [PropagateUntil]: if it occurs
+// within the span, the result is a [*trajectory.StopError].
+func SkyUntil(p *propagate.Propagator, s0 orbit.State, ep timescale.Epoch, dut1, span, step, re float64, site visibility.Site, stop *propagate.Event) ([]SkyPass, error) {
 	if !(span > 0) || math.IsInf(span, 0) {
 		return nil, fmt.Errorf("%w: the sky view needs a positive span, got %g s", ErrSamples, span)
 	}
@@ -49,7 +55,7 @@ func Sky(p *propagate.Propagator, s0 orbit.State, ep timescale.Epoch, dut1, span
 	if err := timescale.CheckDUT1(dut1); err != nil {
 		return nil, err
 	}
-	tr, err := trajectory.Sample(p, s0, span, trajectory.Options{})
+	tr, err := trajectory.Sample(p, s0, span, trajectory.Options{Stop: stop})
 	if err != nil {
 		return nil, err
 	}

@@ -7,6 +7,7 @@ import (
 
 	"centra/orbit"
 	"centra/propagate"
+	"centra/propagate/trajectory"
 )
 
 // MaxSamples bounds the samples of one trajectory: a picture gains
@@ -42,6 +43,14 @@ type Trajectory struct {
 // apoapsis. A span that is not a multiple of step also keeps the state
 // at the end of the span, so the trajectory covers the whole span.
 func Propagate(p *propagate.Propagator, s0 orbit.State, span, step float64) (*Trajectory, error) {
+	return PropagateUntil(p, s0, span, step, nil)
+}
+
+// PropagateUntil is Propagate with a stop event (for example the entry
+// into the body's surface), located during the run: if it occurs, the
+// result is a [*trajectory.StopError] instead of a trajectory. A nil stop
+// is Propagate.
+func PropagateUntil(p *propagate.Propagator, s0 orbit.State, span, step float64, stop *propagate.Event) (*Trajectory, error) {
 	if !(step > 0) || math.IsInf(step, 0) || math.IsNaN(span) || math.IsInf(span, 0) {
 		return nil, fmt.Errorf("%w: span %g s, step %g s", ErrSamples, span, step)
 	}
@@ -59,13 +68,23 @@ func Propagate(p *propagate.Propagator, s0 orbit.State, span, step float64) (*Tr
 		},
 		Events: []propagate.Event{{Kind: propagate.Periapsis}, {Kind: propagate.Apoapsis}},
 		OnEvent: func(h propagate.EventHit) error {
-			tr.Apsides = append(tr.Apsides, Apsis{T: h.T, Periapsis: h.Kind == propagate.Periapsis, State: h.State})
+			if h.Kind == propagate.Periapsis || h.Kind == propagate.Apoapsis {
+				tr.Apsides = append(tr.Apsides, Apsis{T: h.T, Periapsis: h.Kind == propagate.Periapsis, State: h.State})
+			}
 			return nil
 		},
+	}
+	if stop != nil {
+		ev := *stop
+		ev.Terminal = true
+		out.Events = append(out.Events, ev)
 	}
 	res, err := p.Run(s0, span, out)
 	if err != nil {
 		return nil, err
+	}
+	if res.Terminated {
+		return nil, &trajectory.StopError{Event: stop.Name, T: res.T, State: res.State}
 	}
 	if len(tr.T) == 0 || math.Abs(res.T-tr.T[len(tr.T)-1]) > 1e-9*math.Max(1, math.Abs(res.T)) {
 		tr.T = append(tr.T, res.T)

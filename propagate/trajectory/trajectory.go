@@ -37,6 +37,22 @@ type Options struct {
 	// MaxSamples bounds the number of samples; a span that would need
 	// more is refused with ErrTrajectory. Zero means DefaultMaxSamples.
 	MaxSamples int
+	// Stop, when not nil, is located during the propagation (for example
+	// the entry into the body's surface); if it occurs, Sample returns a
+	// [*StopError] instead of a trajectory. Its Terminal field is ignored.
+	Stop *propagate.Event
+}
+
+// StopError reports that Options.Stop occurred at T s, in state State,
+// before the end of the span.
+type StopError struct {
+	Event string
+	T     float64
+	State orbit.State
+}
+
+func (e *StopError) Error() string {
+	return fmt.Sprintf("trajectory: event %q at t = %.3f s, before the end of the span", e.Event, e.T)
 }
 
 // Bound is the proven bound of the interpolation error (see the package
@@ -144,7 +160,7 @@ func Sample(p *propagate.Propagator, s0 orbit.State, span float64, opt Options) 
 		if n+1 > maxSamples {
 			return nil, fmt.Errorf("%w: %d samples needed (step %.3g s over %.6g s), more than %d", ErrTrajectory, n+1, h, span, maxSamples)
 		}
-		tr, err := sampleAt(p, s0, span, n)
+		tr, err := sampleAt(p, s0, span, n, opt.Stop)
 		if err != nil {
 			return nil, err
 		}
@@ -167,7 +183,7 @@ func Sample(p *propagate.Propagator, s0 orbit.State, span float64, opt Options) 
 }
 
 // sampleAt propagates over span and stores n+1 samples at k span/n.
-func sampleAt(p *propagate.Propagator, s0 orbit.State, span float64, n int) (*Trajectory, error) {
+func sampleAt(p *propagate.Propagator, s0 orbit.State, span float64, n int, stop *propagate.Event) (*Trajectory, error) {
 	h := span / float64(n)
 	tr := &Trajectory{span: span, step: h, n: n, r: make([][3]float64, 0, n+1), v: make([][3]float64, 0, n+1)}
 	var badT float64
@@ -182,12 +198,20 @@ func sampleAt(p *propagate.Propagator, s0 orbit.State, span float64, n int) (*Tr
 		tr.v = append(tr.v, s.V)
 		return nil
 	}}
+	if stop != nil {
+		ev := *stop
+		ev.Terminal = true
+		out.Events = []propagate.Event{ev}
+	}
 	res, err := p.Run(s0, span, out)
 	if bad {
 		panic(fmt.Sprintf("trajectory: propagator sampled t = %v, want multiples of %v", badT, h))
 	}
 	if err != nil {
 		return nil, err
+	}
+	if res.Terminated {
+		return nil, &StopError{Event: stop.Name, T: res.T, State: res.State}
 	}
 	if len(tr.r) == n { // the end was not taken as a multiple of the step
 		tr.r = append(tr.r, res.State.R)

@@ -1,6 +1,7 @@
 package trajectory_test
 
 import (
+	"errors"
 	"math"
 	"math/rand/v2"
 	"testing"
@@ -264,5 +265,46 @@ func BenchmarkAt(b *testing.B) {
 		if t > 86400 {
 			t = 0
 		}
+	}
+}
+
+// TestSampleStop: a stop event ends the sampling with a StopError at the
+// event. The orbit has periapsis 100 km below a 6478.137 km "surface"
+// sphere (its apoapsis far above), so the radius first reaches the sphere
+// where r = p/(1 + e cos nu) equals it: from r = a(1 - e cos E), at the
+// eccentric anomaly E with cos E = (1 - r/a)/e, and Kepler's equation
+// gives the time from apoapsis, where the run starts.
+func TestSampleStop(t *testing.T) {
+	const rs = earthRe + 100
+	rp, ra := earthRe, earthRe+2000
+	a, e := (rp+ra)/2, (ra-rp)/(ra+rp)
+	va := math.Sqrt(earthMu * (2/ra - 1/a))
+	s0 := orbit.State{R: [3]float64{-ra, 0, 0}, V: [3]float64{0, -va, 0}}
+	p, err := propagate.New(propagate.PointMass(earthMu), propagate.Options{RelTol: 1e-12})
+	if err != nil {
+		t.Fatal(err)
+	}
+	g := func(_ float64, s orbit.State) float64 {
+		return math.Sqrt(s.R[0]*s.R[0]+s.R[1]*s.R[1]+s.R[2]*s.R[2]) - rs
+	}
+	stop := propagate.Event{Name: "surface", Kind: propagate.Custom, G: g, Direction: -1}
+	_, err = trajectory.Sample(p, s0, 86400, trajectory.Options{Stop: &stop})
+	var se *trajectory.StopError
+	if !errors.As(err, &se) {
+		t.Fatalf("Sample: %v, want a StopError", err)
+	}
+	n := math.Sqrt(earthMu / (a * a * a))
+	cosE := (1 - rs/a) / e
+	E := math.Acos(cosE) // in (0, pi): descending from apoapsis (E = pi)
+	want := (math.Pi - (E - e*math.Sin(E))) / n
+	if se.Event != "surface" || math.Abs(se.T-want) > 1e-6 {
+		t.Errorf("stopped by %q at t = %.9f s, want surface at %.9f s", se.Event, se.T, want)
+	}
+	if r := math.Sqrt(se.State.R[0]*se.State.R[0] + se.State.R[1]*se.State.R[1] + se.State.R[2]*se.State.R[2]); math.Abs(r-rs) > 1e-6 {
+		t.Errorf("radius at the stop %.9f km, want %.9f", r, rs)
+	}
+	// without the event the same orbit samples (it is a valid ellipse)
+	if _, err := trajectory.Sample(p, s0, 86400, trajectory.Options{}); err != nil {
+		t.Errorf("Sample without a stop: %v", err)
 	}
 }
