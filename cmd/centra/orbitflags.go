@@ -334,4 +334,4 @@ func (s *orbitSpec) check(re float64) {
 
 // nearParabolicWarn is the |1-e| below which orbit.CheckTolerance's
 // comment says the checks may fail.
-const nearParabolicWarn = 1e-5
+const nearParabolicWarn = 1e-4
