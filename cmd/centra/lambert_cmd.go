@@ -258,8 +258,8 @@ func solveLambert(s *lambertSpec) (*lambertResult, error) {
 	if err != nil {
 		return nil, inputErrorf("check the geometry", "the transfer orbit: %v", err)
 	}
-	res.angle = lambertSweep(s.r1, s.r2, res.v1)
-	res.minRadius = lambertMinRadius(el, res.geom, res.angle, s.opts.Revs, s.r1, s.r2)
+	res.angle = lambert.SweptAngle(s.r1, s.r2, res.v1)
+	res.minRadius = lambert.LowestRadius(el, res.geom, res.angle, s.opts.Revs, s.r1, s.r2)
 	if s.hasV1b {
 		res.dv1 = lambertNorm(lambertSub(res.v1, s.v1b))
 	}
@@ -303,45 +303,10 @@ func lambertError(s *lambertSpec, err error) error {
 	return inputErrorf("check --r1, --r2 and --tof", "%s", msg)
 }
 
-// lambertSweep is the angle from r1 to r2 in the sense of the motion
-// (the angular momentum r1 x v1), in (0, 2π).
-func lambertSweep(r1, r2, v1 [3]float64) float64 {
-	h := lambertCross(r1, v1)
-	c := lambertCross(r1, r2)
-	ang := math.Atan2(lambertNorm(c), lambertDot(r1, r2))
-	if lambertDot(c, h) < 0 {
-		ang = 2*math.Pi - ang
-	}
-	return ang
-}
-
-// lambertMinRadius is the lowest radius on the arc: the periapsis radius
-// when the arc passes periapsis, else the lower end point.
-func lambertMinRadius(el orbit.Elements, g orbit.Geometry, sweep float64, revs int, r1, r2 [3]float64) float64 {
-	lo := math.Min(lambertNorm(r1), lambertNorm(r2))
-	if el.E == 0 {
-		return lo
-	}
-	nu := el.Nu // [0, 2π) on an ellipse, (-ν∞, ν∞) on an open orbit
-	passes := revs > 0
-	if g.Conic == orbit.Ellipse {
-		passes = passes || nu+sweep >= 2*math.Pi
-	} else {
-		passes = nu < 0 && nu+sweep > 0
-	}
-	if passes {
-		return math.Min(lo, g.PeriapsisRadius)
-	}
-	return lo
-}
-
 func lambertDot(a, b [3]float64) float64 { return a[0]*b[0] + a[1]*b[1] + a[2]*b[2] }
 func lambertNorm(a [3]float64) float64   { return math.Sqrt(lambertDot(a, a)) }
 func lambertSub(a, b [3]float64) [3]float64 {
 	return [3]float64{a[0] - b[0], a[1] - b[1], a[2] - b[2]}
-}
-func lambertCross(a, b [3]float64) [3]float64 {
-	return [3]float64{a[1]*b[2] - a[2]*b[1], a[2]*b[0] - a[0]*b[2], a[0]*b[1] - a[1]*b[0]}
 }
 
 func lambertDirection(s *lambertSpec) string {

@@ -17,11 +17,7 @@ import (
 
 	"github.com/urfave/cli/v2"
 
-	"centra/bodies/earthframe"
-	"centra/bodies/geodesy"
 	"centra/cmd/centra/internal/study"
-	"centra/orbit"
-	"centra/propagate"
 	"centra/reports"
 )
 
@@ -979,82 +975,4 @@ func (s *sweepTable) row(r *caseRow) error {
 func (s *sweepTable) end() error {
 	_, err := fmt.Fprintln(s.w, s.rule)
 	return err
-}
-
-// ephemerisFinal writes the record of 'ephemeris --final': the state at
-// the end of the span in the chosen frame, the work of the integrator and,
-// with --checks, the conservation and Kepler-law checks (each also as a
-// scalar NAME_relative_error key). It is one record, so --expect works on
-// any of its keys and 'sweep' can read it; the option exists for sweeps.
-func ephemerisFinal(o *output, spec *orbitSpec, ms *modelSpec, span float64, frame ephemerisFrame, dut1 float64, withChecks bool, exps []expectation) error {
-	p, err := propagate.New(ms.Model, ms.Options)
-	if err != nil {
-		return inputErrorf("check --model and --tolerance", "%v", err)
-	}
-	surface, err := surfaceEvent(spec)
-	if err != nil {
-		return err
-	}
-	res, err := p.Run(spec.State, span, &propagate.Output{Events: []propagate.Event{surface}})
-	if err != nil {
-		return propagationError(err)
-	}
-	if res.Terminated {
-		return impactError(spec, res)
-	}
-	end := spec.Epoch.Add(res.T)
-	r, v := res.State.R, res.State.V
-	if frame != frameInertial {
-		rot := earthframe.NewRotation(end, dut1)
-		r, v = rot.StateToITRF(r, v)
-	}
-	norm := func(x [3]float64) float64 { return math.Sqrt(x[0]*x[0] + x[1]*x[1] + x[2]*x[2]) }
-	rec := reports.Record{
-		{Key: "body", Label: "central body", Value: spec.Body.Name},
-		{Key: "model", Label: "force model", Value: ms.Label},
-		{Key: "frame", Label: "frame", Value: frameName(frame)},
-		{Key: "epoch_utc", Label: "initial epoch", Value: formatEpoch(spec.Epoch)},
-		{Key: "final_utc", Label: "final epoch", Value: formatEpoch(end)},
-		reports.Num("span_s", "time propagated", res.T, 12),
-	}
-	if frame == frameGeodetic {
-		lat, lon, alt := geodesy.WGS84.FromECEF(r)
-		rec = append(rec,
-			reports.Num("final_lat_deg", "final geodetic latitude", lat*rad2deg, 10),
-			reports.Num("final_lon_deg", "final longitude", lon*rad2deg, 10),
-			reports.Num("final_alt_km", "final altitude above WGS 84", alt, 10))
-	} else {
-		rec = append(rec,
-			reports.Num("final_x_km", "final x", r[0], 12),
-			reports.Num("final_y_km", "final y", r[1], 12),
-			reports.Num("final_z_km", "final z", r[2], 12),
-			reports.Num("final_vx_km_s", "final vx", v[0], 12),
-			reports.Num("final_vy_km_s", "final vy", v[1], 12),
-			reports.Num("final_vz_km_s", "final vz", v[2], 12))
-	}
-	rec = append(rec,
-		reports.Num("final_radius_km", "final radius", norm(r), 12),
-		reports.Num("final_speed_km_s", "final speed (in the frame)", norm(v), 12),
-		reports.Field{Key: "steps", Label: "integration steps", Value: res.Stats.Steps},
-		reports.Field{Key: "evaluations", Label: "evaluations of the equations of motion", Value: res.Stats.Evaluations})
-	var checks []orbit.Check
-	if withChecks {
-		checks, err = propagate.Checks(ms.Model, spec.State, span, ms.Options)
-		if err != nil {
-			return propagationError(err)
-		}
-		for _, ch := range checks {
-			rec = append(rec, reports.Num(ch.Name+"_relative_error", ch.Name+" relative error", ch.RelativeError, 6))
-		}
-		rec = append(rec, reports.Field{Key: "checks", Value: checkRecords(checks)})
-	}
-	title := fmt.Sprintf("Final state about %s after %s, %s", spec.Body.Name, strconv.FormatFloat(res.T, 'f', -1, 64)+" s", ms.Label)
-	return o.emitWithExpectations(title, rec, exps, func() error {
-		if o.Format != "table" || len(checks) == 0 {
-			return nil
-		}
-		fmt.Fprintln(o.W)
-		reports.WriteTitle(o.W, "Checks of the propagation against the conservation and Kepler laws")
-		return reports.WriteListTable(o.W, checkRecords(checks))
-	})
 }
