@@ -65,7 +65,7 @@ func commandToken(args []string) string {
 	valued := map[string]bool{}
 	for _, f := range globalFlags() {
 		if _, ok := f.(*cli.StringFlag); ok {
-			for _, n := range f.Names() {
+			for _, n := range flagNames(f) {
 				valued[n] = true
 			}
 		}

@@ -17,6 +17,7 @@ import (
 	"centra/bodies/geodesy"
 	"centra/orbit"
 	"centra/propagate"
+	"centra/propagate/trajectory"
 	"centra/reports"
 )
 
@@ -271,6 +272,16 @@ func impactError(spec *orbitSpec, res propagate.Result) error {
 	r := math.Sqrt(res.State.R[0]*res.State.R[0] + res.State.R[1]*res.State.R[1] + res.State.R[2]*res.State.R[2])
 	return inputErrorf("shorten --span to end before the impact, raise the periapsis, or use 'centra ballistic' for a suborbital arc",
 		"the trajectory reaches the surface of %s at %s (t = %.3f s, radius %.3f km), where the propagation stops", spec.Body.Name, formatEpoch(spec.Epoch.Add(res.T)), res.T, r)
+}
+
+// surfaceStop returns impactError when err reports that a sampling or
+// track propagation stopped at its surface event, and nil otherwise.
+func surfaceStop(spec *orbitSpec, err error) error {
+	var stop *trajectory.StopError
+	if !errors.As(err, &stop) {
+		return nil
+	}
+	return impactError(spec, propagate.Result{T: stop.T, State: stop.State, Terminated: true})
 }
 
 // propagationError explains a propagation that stopped early.

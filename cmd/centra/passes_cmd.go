@@ -118,11 +118,11 @@ func sampleOrbit(spec *orbitSpec, ms *modelSpec, span, tolKm float64) (*trajecto
 	}
 	tr, err := trajectory.Sample(p, spec.State, span, trajectory.Options{PositionTol: tolKm, Stop: &surface})
 	if err != nil {
+		if ie := surfaceStop(spec, err); ie != nil {
+			return nil, ie
+		}
 		var se *propagate.StepError
-		var stop *trajectory.StopError
 		switch {
-		case errors.As(err, &stop):
-			return nil, impactError(spec, propagate.Result{T: stop.T, State: stop.State, Terminated: true})
 		case errors.As(err, &se):
 			return nil, inputErrorf("check the orbit: it cannot be propagated over the span", "the propagation stopped %.3f s after the epoch: %v", se.T, se.Err)
 		case errors.Is(err, trajectory.ErrTrajectory):

@@ -269,11 +269,10 @@ func propagateTrack(spec *orbitSpec, ms *modelSpec, span, step float64) (*track.
 	}
 	tr, err := track.PropagateUntil(p, spec.State, span, step, &surface)
 	if err != nil {
-		var stop *trajectory.StopError
-		switch {
-		case errors.As(err, &stop):
-			return nil, impactError(spec, propagate.Result{T: stop.T, State: stop.State, Terminated: true})
-		case errors.Is(err, track.ErrSamples):
+		if ie := surfaceStop(spec, err); ie != nil {
+			return nil, ie
+		}
+		if errors.Is(err, track.ErrSamples) {
 			return nil, inputErrorf("lengthen --step or shorten --span", "%v", err)
 		}
 		return nil, propagationError(err)
@@ -540,9 +539,8 @@ func skyJob(c *cli.Context) (*plotJob, error) {
 		}
 		passes, err := track.SkyUntil(p, spec.State, spec.Epoch, dut1, span, step, b.EquatorialRadius, site, &surface)
 		if err != nil {
-			var stop *trajectory.StopError
-			if errors.As(err, &stop) {
-				return nil, nil, impactError(spec, propagate.Result{T: stop.T, State: stop.State, Terminated: true})
+			if ie := surfaceStop(spec, err); ie != nil {
+				return nil, nil, ie
 			}
 			if errors.Is(err, trajectory.ErrTrajectory) {
 				return nil, nil, inputErrorf("shorten --span", "%v", err)

@@ -320,35 +320,17 @@ type caseRunner struct {
 
 func newCaseRunner() *caseRunner {
 	r := &caseRunner{}
+	// newApp's flags compute their names once (namedOnce), which per
+	// case costs urfave/cli more than a day of J2 propagation otherwise.
 	r.app = newApp(&r.out, &r.errb)
-	r.app.Flags = quickFlags(r.app.Flags)
 	// No --help: urfave/cli adds the one package-level HelpFlag to every
 	// app and writes to it on each Run, a data race between runners.
 	// sweep refuses --help among the command flags anyway.
 	r.app.HideHelp = true
 	for _, cmd := range r.app.Commands {
-		cmd.Flags = quickFlags(cmd.Flags)
 		cmd.HideHelp = true
 	}
 	return r
-}
-
-// quickNamed caches the names of a flag. urfave/cli v2.27.7 recomputes
-// them with a regular expression (FlagNames) for every flag it scans in
-// Context.IsSet, which cost more than a day of J2 propagation per case.
-type quickNamed struct {
-	cli.Flag
-	names []string
-}
-
-func (q quickNamed) Names() []string { return q.names }
-
-func quickFlags(flags []cli.Flag) []cli.Flag {
-	out := make([]cli.Flag, len(flags))
-	for i, f := range flags {
-		out[i] = quickNamed{Flag: f, names: f.Names()}
-	}
-	return out
 }
 
 // run runs one command line; the record is a copy.
